@@ -113,6 +113,20 @@ export interface Joint {
   readonly to: Vec3;
   /** For mortise-and-tenon: the piece carrying the tenon. */
   readonly tenon?: string;
+  /**
+   * Where material must be removed to make the joint, one entry per slotted piece, as a
+   * segment on the joint line (world coordinates); the slot is as wide as the mating piece is
+   * thick. mortise-and-tenon: the mortise piece over the whole segment; cross-lap: each piece
+   * from its own end of the segment to the midpoint; through-slot: the outer piece over the whole
+   * segment; corner and locked-crossing: none.
+   */
+  readonly slots: readonly JointSlot[];
+}
+
+export interface JointSlot {
+  readonly piece: string;
+  readonly from: Vec3;
+  readonly to: Vec3;
 }
 
 export interface Finding {
