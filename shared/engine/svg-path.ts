@@ -52,7 +52,8 @@ export function flattenSvgPath(d: string, options: FlattenOptions = {}): Flatten
   let segments: (string | number)[][];
   try {
     const p = svgpath(d);
-    if (p.err) return { ok: false, errors: [`path data: ${p.err.replace(/^SvgPath:\s*/, '')}`] };
+    const err = (p as unknown as { err: string }).err;
+    if (err) return { ok: false, errors: [`path data: ${err.replace(/^SvgPath:\s*/, '')}`] };
     if (options.transform) p.matrix(options.transform.slice());
     p.abs().unshort();
     segments = (p as unknown as { segments: (string | number)[][] }).segments;
