@@ -1,0 +1,68 @@
+/**
+ * Starts Planewright: config → database (migrations) → demo seed → mail → HTTP.
+ * Run with `npx tsx --tsconfig tsconfig.server.json server/index.ts`.
+ */
+import 'reflect-metadata';
+import type { Server } from 'node:http';
+import { resolve } from 'node:path';
+import { createApp } from './app.js';
+import { ConfigError, loadConfig } from './config.js';
+import { openDatabase } from './db/data-source.js';
+import { systemClock } from './lib/clock.js';
+import { createMailService } from './mail/mail-service.js';
+import { startMailSink, type MailSink } from './mail/sink.js';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemoIfEmpty } from './seed/demo.js';
+
+async function main(): Promise<void> {
+  const config = loadConfig();
+  const dataSource = await openDatabase(config.databasePath);
+  const seeded = config.nodeEnv === 'production' ? false : await seedDemoIfEmpty(dataSource, { env: config.nodeEnv });
+
+  let sink: MailSink | null = null;
+  if (!config.smtpUrl) sink = await startMailSink(dataSource, systemClock);
+  const mail = createMailService(config.smtpUrl ?? sink!.url, config.mailFrom, { local: sink !== null });
+
+  const app = createApp({ config, dataSource, mail, clock: systemClock, clientDir: resolve('dist/client') });
+  const server: Server = await new Promise((ok, fail) => {
+    const s = app.listen(config.port, config.host, (err?: Error) => (err ? fail(err) : ok(s)));
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  const shownHost = config.host === '0.0.0.0' || config.host === '::' ? 'localhost' : config.host;
+
+  console.log(`Planewright is running at http://${shownHost}:${port}`);
+  console.log(`  database: ${config.databasePath}${seeded ? ' (demo data added)' : ''}`);
+  console.log(sink ? `  mail: in-process sink on ${sink.url} (admin → Outbox shows every message)` : `  mail: ${new URL(config.smtpUrl!).host}`);
+  if (config.nodeEnv !== 'production') {
+    console.log(`  demo accounts (password "${DEMO_PASSWORD}"):`);
+    for (const a of DEMO_ACCOUNTS.slice(0, 5)) console.log(`    ${a.email.padEnd(26)} ${a.globalRole ?? a.studioRole}`);
+  }
+
+  let closing = false;
+  const shutdown = (signal: string) => {
+    if (closing) return;
+    closing = true;
+    console.log(`\n${signal}: shutting down`);
+    const force = setTimeout(() => process.exit(1), 10_000);
+    force.unref();
+    server.closeAllConnections?.();
+    server.close(async () => {
+      try {
+        mail.close();
+        await sink?.close();
+        await dataSource.destroy();
+      } finally {
+        clearTimeout(force);
+        process.exit(0);
+      }
+    });
+  };
+  process.on('SIGINT', () => shutdown('SIGINT'));
+  process.on('SIGTERM', () => shutdown('SIGTERM'));
+}
+
+main().catch((e: unknown) => {
+  if (e instanceof ConfigError) console.error(e.message);
+  else console.error('Planewright could not start:', e);
+  process.exit(1);
+});

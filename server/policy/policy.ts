@@ -1,0 +1,114 @@
+/**
+ * The one place that decides who may do what. Every API route names an action and asks
+ * `decide` before its handler runs; services ask it again where the answer depends on data
+ * loaded later (accepting an invitation).
+ *
+ * Roles: global `admin` (runs the maker space: every studio, users, outbox) and `technician`
+ * (the cut queue; no studio rights of its own); per studio `instructor`, `critic`,
+ * `participant`. A person may hold different roles in different studios.
+ *
+ * Decisions worth knowing:
+ * - Anonymous callers get 401 for everything that needs an account; signed-in callers without
+ *   the right get 403 (also for studios they are not in, so ids do not reveal membership).
+ * - The studio roster (names, roles and e-mail addresses) is visible to every member of that
+ *   studio, so participants can reach their critics and each other; outsiders and technicians
+ *   who are not members see nothing of it.
+ * - Instructors manage members and invitations of their own studios; admins may do the same
+ *   in every studio (they run the space), and only admins create studios or change global roles.
+ * - An invitation is accepted by a newcomer (no account with the invited address) without
+ *   signing in, or by the invited account while signed in as it; anyone else is refused with the
+ *   address the invitation is for.
+ */
+import type { GlobalRole, StudioRole } from '../../shared/api/roles.js';
+
+export interface Actor {
+  id: number;
+  email: string;
+  globalRole: GlobalRole | null;
+  memberships: ReadonlyArray<{ studioId: number; role: StudioRole }>;
+}
+
+export const ACTIONS = [
+  'health.read',
+  'auth.login',
+  'auth.logout',
+  'auth.me',
+  'auth.password-reset',
+  'studio.list',
+  'studio.create',
+  'studio.view',
+  'studio.members.list',
+  'studio.members.manage',
+  'studio.invitations.manage',
+  'invitation.open',
+  'invitation.accept',
+  'admin.users.list',
+  'admin.users.manage',
+  'admin.outbox.read',
+] as const;
+export type Action = (typeof ACTIONS)[number];
+
+export interface Resource {
+  studioId?: number;
+  /** For `invitation.accept`: the invited address and whether an account has it. */
+  invitedEmail?: string;
+  accountExists?: boolean;
+}
+
+export type Decision = { allowed: true } | { allowed: false; status: 401 | 403; message: string };
+
+const ALLOW: Decision = { allowed: true };
+const SIGN_IN: Decision = { allowed: false, status: 401, message: 'Sign in to continue.' };
+const deny = (message: string): Decision => ({ allowed: false, status: 403, message });
+
+/** The caller's role in a studio, or null. */
+export function studioRole(actor: Actor | null, studioId: number | undefined): StudioRole | null {
+  if (!actor || studioId === undefined) return null;
+  return actor.memberships.find((m) => m.studioId === studioId)?.role ?? null;
+}
+
+export const isAdmin = (actor: Actor | null): boolean => actor?.globalRole === 'admin';
+
+/** Decides whether `actor` (null when signed out) may perform `action` on `resource`. */
+export function decide(actor: Actor | null, action: Action, resource: Resource = {}): Decision {
+  switch (action) {
+    case 'health.read':
+    case 'auth.login':
+    case 'auth.logout':
+    case 'auth.password-reset':
+    case 'invitation.open':
+      return ALLOW;
+    case 'invitation.accept': {
+      const invited = resource.invitedEmail?.toLowerCase();
+      if (!actor) {
+        if (resource.accountExists) {
+          return { allowed: false, status: 401, message: `An account for ${invited} already exists. Sign in as ${invited}, then accept the invitation.` };
+        }
+        return ALLOW;
+      }
+      if (invited !== undefined && actor.email.toLowerCase() === invited) return ALLOW;
+      return deny(`This invitation is for ${invited}, but you are signed in as ${actor.email}. Sign out and open the link again, or sign in as ${invited}.`);
+    }
+  }
+  if (!actor) return SIGN_IN;
+  switch (action) {
+    case 'auth.me':
+    case 'studio.list':
+      return ALLOW;
+    case 'studio.create':
+    case 'admin.users.list':
+    case 'admin.users.manage':
+    case 'admin.outbox.read':
+      return isAdmin(actor) ? ALLOW : deny('Only an admin can do that.');
+    case 'studio.view':
+    case 'studio.members.list':
+      return isAdmin(actor) || studioRole(actor, resource.studioId) ? ALLOW : deny('You are not a member of this studio.');
+    case 'studio.members.manage':
+    case 'studio.invitations.manage':
+      return isAdmin(actor) || studioRole(actor, resource.studioId) === 'instructor'
+        ? ALLOW
+        : deny('Only an instructor of this studio can do that.');
+  }
+}
+
+export const can = (actor: Actor | null, action: Action, resource?: Resource): boolean => decide(actor, action, resource).allowed;
