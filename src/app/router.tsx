@@ -1,0 +1,110 @@
+/**
+ * The one router of the app. Route modules load lazily; each may export `makeLoader(queryClient)`,
+ * whose loader calls `ensureQueryData` with the same query options its component reads, so a
+ * screen renders with its data instead of a spinner.
+ */
+import type { ComponentType } from 'react';
+import type { QueryClient } from '@tanstack/react-query';
+import { createBrowserRouter, redirect, type LoaderFunction, type LoaderFunctionArgs } from 'react-router-dom';
+import { meQueryOptions } from '../features/auth/api/get-me.js';
+import { signInPath } from '../lib/api-client.js';
+import { AppLayout, SignedInOutlet } from './layout/app-layout.js';
+import { RootErrorPage, RouteErrorPage } from './routes/error-page.js';
+import { PageSkeleton } from '../components/ui/spinner.js';
+
+export interface RouteModule {
+  Component: ComponentType;
+  makeLoader?: (queryClient: QueryClient) => LoaderFunction;
+}
+
+function rootLoader(queryClient: QueryClient) {
+  return async () => {
+    await queryClient.ensureQueryData(meQueryOptions());
+    return null;
+  };
+}
+
+/** Signed-out visitors go to sign-in and come back to where they were heading. */
+function requireSession(queryClient: QueryClient) {
+  return async ({ request }: LoaderFunctionArgs) => {
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (!me) {
+      const url = new URL(request.url);
+      throw redirect(signInPath(`${url.pathname}${url.search}`));
+    }
+    return null;
+  };
+}
+
+function requireAdmin(queryClient: QueryClient) {
+  return async (args: LoaderFunctionArgs) => {
+    await requireSession(queryClient)(args);
+    const me = await queryClient.ensureQueryData(meQueryOptions());
+    if (me?.globalRole !== 'admin') {
+      throw new Response('These pages are for the maker-space admin.', { status: 403, statusText: 'Forbidden' });
+    }
+    return null;
+  };
+}
+
+export function createAppRouter(queryClient: QueryClient) {
+  const lazy = (load: () => Promise<RouteModule>) => async () => {
+    const module = await load();
+    return {
+      Component: module.Component,
+      ...(module.makeLoader ? { loader: module.makeLoader(queryClient) } : {}),
+    };
+  };
+
+  return createBrowserRouter([
+    {
+      id: 'root',
+      path: '/',
+      Component: AppLayout,
+      loader: rootLoader(queryClient),
+      ErrorBoundary: RootErrorPage,
+      HydrateFallback: () => <PageSkeleton label="Opening Planewright…" />,
+      children: [
+        {
+          // Errors below here render inside the layout, so the top bar stays usable.
+          ErrorBoundary: RouteErrorPage,
+          children: [
+            { path: 'sign-in', lazy: lazy(() => import('./routes/sign-in.js')) },
+            { path: 'forgot-password', lazy: lazy(() => import('./routes/forgot-password.js')) },
+            { path: 'reset-password', lazy: lazy(() => import('./routes/reset-password.js')) },
+            { path: 'invitations/:token', lazy: lazy(() => import('./routes/invitation.js')) },
+            {
+              id: 'signed-in',
+              loader: requireSession(queryClient),
+              Component: SignedInOutlet,
+              children: [
+                { index: true, lazy: lazy(() => import('./routes/dashboard.js')) },
+                { path: 'studios/:studioId', lazy: lazy(() => import('./routes/studio.js')) },
+                {
+                  path: 'admin',
+                  loader: requireAdmin(queryClient),
+                  children: [
+                    { index: true, loader: () => redirect('/admin/users') },
+                    { path: 'users', lazy: lazy(() => import('./routes/admin-users.js')) },
+                    { path: 'studios', lazy: lazy(() => import('./routes/admin-studios.js')) },
+                    {
+                      path: 'outbox',
+                      lazy: lazy(() => import('./routes/admin-outbox.js')),
+                      children: [
+                        { index: true, lazy: lazy(() => import('./routes/admin-outbox-empty.js')) },
+                        { path: ':mailId', lazy: lazy(() => import('./routes/admin-mail.js')) },
+                      ],
+                    },
+                  ],
+                },
+              ],
+            },
+            { path: '*', lazy: lazy(() => import('./routes/not-found.js')) },
+          ],
+        },
+      ],
+    },
+  ]);
+}
+
+export type AppRouter = ReturnType<typeof createAppRouter>;

@@ -1,0 +1,6 @@
+/** Query keys of the invitations feature (previews are addressed by their token). */
+export const invitationKeys = {
+  all: ['invitations'] as const,
+  details: () => [...invitationKeys.all, 'detail'] as const,
+  detail: (token: string) => [...invitationKeys.details(), token] as const,
+};

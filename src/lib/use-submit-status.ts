@@ -1,0 +1,33 @@
+import { useCallback, useState } from 'react';
+import type { FieldValues, Path, UseFormReturn } from 'react-hook-form';
+import type { FormStatusValue } from '../components/ui/form-status.js';
+import { describeError } from '../components/ui/error-state.js';
+import { isApiError } from './api-client.js';
+import { applyFieldErrors } from './form-errors.js';
+
+/**
+ * The status line of a form plus `fail(error)`, which puts the server's field messages at the
+ * fields and states the rest, so nothing the server said is lost.
+ */
+export function useSubmitStatus<T extends FieldValues>(form: UseFormReturn<T, any, any>) {
+  const [status, setStatus] = useState<FormStatusValue>(null);
+  const { setError, getValues } = form;
+
+  const fail = useCallback(
+    (error: unknown) => {
+      if (isApiError(error)) {
+        const names = Object.keys(getValues()) as Path<T>[];
+        const unplaced = applyFieldErrors(error.fields, names, (name, e) => setError(name, e));
+        const extra = unplaced.length ? ` ${unplaced.join(' ')}` : '';
+        setStatus({ kind: 'error', message: `${error.message}${extra}` });
+      } else {
+        setStatus({ kind: 'error', message: describeError(error) });
+      }
+    },
+    [getValues, setError],
+  );
+
+  const succeed = useCallback((message: string) => setStatus({ kind: 'success', message }), []);
+  const clear = useCallback(() => setStatus(null), []);
+  return { status, fail, succeed, clear };
+}
