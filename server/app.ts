@@ -22,6 +22,7 @@ const ROUTES = Symbol('planewright.routes');
 
 export function createApp(ctx: AppContext): Express {
   const app = express();
+  const logError = ctx.logError ?? ((e: unknown) => console.error(e));
   const registry = new RouteRegistry();
   (app as unknown as Record<symbol, RouteRegistry>)[ROUTES] = registry;
   app.disable('x-powered-by');
@@ -64,7 +65,7 @@ export function createApp(ctx: AppContext): Express {
     session({
       name: SESSION_COOKIE,
       secret: ctx.config.sessionSecret,
-      store: createSessionStore(ctx.dataSource),
+      store: createSessionStore(ctx.dataSource, logError),
       resave: false,
       saveUninitialized: false,
       rolling: true,
@@ -86,7 +87,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api', apiNotFound());
 
   app.use(clientRouter(ctx.clientDir));
-  app.use(errorMiddleware(ctx.logError ?? ((e) => console.error(e))));
+  app.use(errorMiddleware(logError));
   return app;
 }
 

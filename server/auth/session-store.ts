@@ -6,9 +6,15 @@ import { Session } from '../db/entities/index.js';
  * connect-typeorm's store on the sessions table. Its own `destroy` does not wait for the
  * delete, so a request right after sign-out could still see the session; this one waits.
  */
-export function createSessionStore(ds: DataSource): TypeormStore {
+export function createSessionStore(ds: DataSource, logError: (e: unknown) => void): TypeormStore {
   const repo = ds.getRepository(Session);
-  const store = new TypeormStore({ cleanupLimit: 2, ttl: (_s, sess) => ttlOf(sess) }).connect(repo);
+  const store = new TypeormStore({
+    cleanupLimit: 2,
+    ttl: (_s, sess) => ttlOf(sess),
+    // Without onError the store marks itself disconnected after one failed query and every later
+    // request would be treated as signed out; log instead and let express-session answer 500.
+    onError: (_s, e) => logError(e),
+  }).connect(repo);
   store.destroy = (sid: string | string[], fn?: (err?: unknown) => void) => {
     const ids = Array.isArray(sid) ? sid : [sid];
     repo

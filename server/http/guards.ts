@@ -31,7 +31,9 @@ export function sameOrigin(allowed: readonly string[]): RequestHandler {
 /** A request with a body must send JSON or multipart; anything else is 415. */
 export function jsonOrMultipart(): RequestHandler {
   return (req, _res, next) => {
-    // `req.is` answers null when there is no body at all.
+    // `req.is` answers null without a body; an empty body (Content-Length: 0, what fetch sends
+    // for a bare POST) counts as none too.
+    if (req.headers['content-length'] === '0' && req.headers['transfer-encoding'] === undefined) return next();
     const t = req.is(['application/json', 'multipart/form-data']);
     if (t === false) throw new UnsupportedMediaTypeError();
     next();
