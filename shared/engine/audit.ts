@@ -1,0 +1,373 @@
+/**
+ * The audit (FORMAT.md §3–§5): pieces, joints by kind, connectivity, findings and the sheet
+ * estimate of a validated design, as the report every caller (server worker, client, command
+ * line) shows.
+ *
+ * Choices where FORMAT.md is silent (the project's own):
+ * - Options override the design's `constraints` (a brief's limits win over the file's).
+ * - Joints are listed by the position of their pieces in the piece list (a before b, as the
+ *   pieces come from the builder: motif by motif), then along the joint line.
+ * - Findings are ordered errors, warnings, infos; within a severity in the order the checks run.
+ * - Repeated findings: a design under a group of order 60 repeats every problem up to 60 times.
+ *   The joint findings (`non-orthogonal-contact`, `locked-crossing`, `short-joint`) are
+ *   therefore grouped into classes of the same problem — the same code, the same pair of motifs,
+ *   the same joint kind, and the same angle and length to 0.01 (° and mm) — which is exactly
+ *   what a symmetry orbit of one joint looks like. Each class is one finding whose message names
+ *   one example pair and the number of places, and whose `pieces` lists every piece involved.
+ * - `short-joint` is raised only for joints that are otherwise good (orthogonal, not locked):
+ *   the others already carry an error.
+ * - `disconnected` lists every group with its size; its `pieces` are the pieces outside the
+ *   largest group (the ones to connect). The report's extra key `groups` lists all groups.
+ * - With `nesting: false` the sheet estimate (and the findings that need it) is skipped and
+ *   `sheets` is absent, for live previews; by default it runs whenever a sheet size is known.
+ */
+import { getGroup } from './groups.js';
+import type { AuditReport, Finding, Joint, JointKind, Piece, ResolvedDesign, Severity, Template } from './model.js';
+import { JOINT_KINDS } from './model.js';
+import { DEFAULT_ANGLE_TOLERANCE_DEG, type PreparedPiece, jointContext, pairJoints, preparePiece } from './joints.js';
+import { connectivity } from './connectivity.js';
+import { overlappingPairs, pieceBoxes } from './spatial.js';
+import { LENGTH_TOL } from './tolerance.js';
+import { estimateSheets } from './sheets.js';
+import { createPieceBuilder } from './pieces.js';
+import { parseDesign, type InputIssue } from './design.js';
+
+/** What a caller may set; each overrides the design's own `constraints`. */
+export interface AuditOptions {
+  readonly sheet?: readonly [number, number];
+  readonly maxSheets?: number;
+  readonly angleToleranceDeg?: number;
+  readonly minJointLength?: number;
+  /** Run the sheet estimate when a sheet size is known (default true). */
+  readonly nesting?: boolean;
+}
+
+/** The limits an audit runs with, after options and constraints are combined. */
+export interface EffectiveLimits {
+  readonly sheet?: readonly [number, number];
+  readonly maxSheets?: number;
+  readonly angleToleranceDeg: number;
+  readonly minJointLength: number;
+  readonly nesting: boolean;
+}
+
+/** Options first, then the design's constraints, then the defaults of FORMAT.md §3–§4. */
+export function effectiveLimits(design: ResolvedDesign, options: AuditOptions = {}): EffectiveLimits {
+  const c = design.constraints ?? {};
+  const sheet = options.sheet ?? c.sheet;
+  const maxSheets = options.maxSheets ?? c.maxSheets;
+  return {
+    ...(sheet ? { sheet } : {}),
+    ...(maxSheets !== undefined ? { maxSheets } : {}),
+    angleToleranceDeg: options.angleToleranceDeg ?? c.angleToleranceDeg ?? DEFAULT_ANGLE_TOLERANCE_DEG,
+    minJointLength: options.minJointLength ?? c.minJointLength ?? 2 * design.material.thickness,
+    nesting: options.nesting ?? true,
+  };
+}
+
+/** The report with the extra key this engine adds: every connected group of pieces. */
+export interface FullAuditReport extends AuditReport {
+  /** Connected groups under the joints that can be made, largest first (ids sorted). */
+  readonly groups: readonly (readonly string[])[];
+}
+
+/**
+ * Audits a validated design (FORMAT.md §5). Never throws for a design that {@link parseDesign}
+ * accepted; an empty design (no motifs) gives 0 pieces, 0 components and ok = true. Equal to
+ * `createAuditor().audit(design, options)`, which is the same computation with a cache.
+ */
+export function audit(design: ResolvedDesign, options: AuditOptions = {}): FullAuditReport {
+  return createAuditor().audit(design, options);
+}
+
+/** Result of {@link auditDocument}. */
+export type AuditDocumentResult = { ok: true; report: FullAuditReport } | { ok: false; errors: InputIssue[] };
+
+/**
+ * Validates a design document (parsed JSON) and audits it. Invalid input gives the issues of
+ * {@link parseDesign} (each naming the field path) and no partial report. Never throws.
+ */
+export function auditDocument(json: unknown, options: AuditOptions = {}): AuditDocumentResult {
+  const parsed = parseDesign(json);
+  if (!parsed.ok) return { ok: false, errors: parsed.errors };
+  try {
+    return { ok: true, report: audit(parsed.design, options) };
+  } catch (e) {
+    return { ok: false, errors: [{ path: '', message: `the design could not be audited (${e instanceof Error ? e.message : String(e)})` }] };
+  }
+}
+
+/** An auditor that keeps work between calls; see {@link createAuditor}. */
+export interface Auditor {
+  /** Same result as {@link audit}; reuses pieces and joints of motifs that did not change. */
+  audit(design: ResolvedDesign, options?: AuditOptions): FullAuditReport;
+  /** Drops everything cached. */
+  clear(): void;
+}
+
+interface MotifBlock {
+  readonly key: string;
+  /** Positions of the motif's pieces in the piece list. */
+  readonly indices: readonly number[];
+}
+
+/**
+ * An auditor with a cache for editing sessions: the joints between the pieces of two motifs
+ * depend only on those two motifs (outline, family plane, group), the thickness and the angle
+ * tolerance, so they are kept per ordered motif pair and recomputed only when one of the two
+ * changes. The result is always equal to a fresh {@link audit} (the cache holds exactly what the
+ * computation would produce, and the final ordering does not depend on what was cached). The
+ * cache keeps the blocks of the last design audited, so it does not grow without bound.
+ */
+export function createAuditor(): Auditor {
+  const builder = createPieceBuilder();
+  let preparedByBlock = new Map<string, readonly PreparedPiece[]>();
+  let joints = new Map<string, Joint[]>();
+
+  return {
+    clear(): void {
+      builder.clear();
+      preparedByBlock = new Map();
+      joints = new Map();
+    },
+    audit(design: ResolvedDesign, options: AuditOptions = {}): FullAuditReport {
+      const limits = effectiveLimits(design, options);
+      const group = getGroup(design.symmetry);
+      const built = builder.build(design, group);
+      const pieces = built.pieces;
+      const ctx = jointContext({ thickness: design.material.thickness, angleToleranceDeg: limits.angleToleranceDeg });
+
+      // Blocks of pieces per motif, in piece order; prepared geometry is reused per block.
+      const blocks = motifBlocks(design, pieces);
+      const nextPrepared = new Map<string, readonly PreparedPiece[]>();
+      const preparedAt: PreparedPiece[] = new Array(pieces.length);
+      const blockOf = new Int32Array(pieces.length);
+      blocks.forEach((b, k) => {
+        let prep = preparedByBlock.get(b.key);
+        if (!prep || prep.length !== b.indices.length) prep = b.indices.map((i) => preparePiece(pieces[i]));
+        nextPrepared.set(b.key, prep);
+        b.indices.forEach((i, n) => {
+          blockOf[i] = k;
+          preparedAt[i] = prep[n];
+        });
+      });
+      preparedByBlock = nextPrepared;
+      const indexOf = new Map<string, number>();
+      pieces.forEach((p, i) => indexOf.set(p.id, i));
+
+      const pairs = overlappingPairs(pieceBoxes(pieces, ctx.half + LENGTH_TOL));
+      const pairsByBlock = new Map<number, number[]>();
+      const nb = blocks.length;
+      for (let k = 0; k < pairs.length; k += 2) {
+        const i = pairs[k], j = pairs[k + 1];
+        let bi = blockOf[i], bj = blockOf[j];
+        let a = i, b = j;
+        if (bi > bj || (bi === bj && i > j)) { [bi, bj] = [bj, bi]; [a, b] = [b, a]; }
+        const key = bi * nb + bj;
+        let list = pairsByBlock.get(key);
+        if (!list) pairsByBlock.set(key, (list = []));
+        list.push(a, b);
+      }
+      const nextJoints = new Map<string, Joint[]>();
+      const all: Joint[] = [];
+      const tag = `${design.material.thickness}\u0001${limits.angleToleranceDeg}`;
+      for (let bi = 0; bi < nb; bi++) {
+        for (let bj = bi; bj < nb; bj++) {
+          const cacheKey = `${blocks[bi].key}\u0002${blocks[bj].key}\u0002${tag}`;
+          let list = joints.get(cacheKey);
+          if (!list) {
+            list = [];
+            const ps = pairsByBlock.get(bi * nb + bj);
+            if (ps) {
+              // Visit pairs in piece order so the block's list is in the final order already.
+              for (const k of sortedPairOrder(ps)) pairJoints(preparedAt[ps[2 * k]], preparedAt[ps[2 * k + 1]], ctx, list);
+            }
+          }
+          nextJoints.set(cacheKey, list);
+          for (const jt of list) all.push(jt);
+        }
+      }
+      joints = nextJoints;
+      all.sort((x, y) => indexOf.get(x.a)! - indexOf.get(y.a)! || indexOf.get(x.b)! - indexOf.get(y.b)!);
+      return assembleReport({
+        design,
+        groupName: group.name,
+        order: group.order,
+        pieces,
+        templates: built.templates,
+        joints: all,
+        pieceFindings: built.findings,
+        limits,
+      });
+    },
+  };
+}
+
+function sortedPairOrder(ps: readonly number[]): number[] {
+  const n = ps.length / 2;
+  const order = Array.from({ length: n }, (_, k) => k);
+  order.sort((x, y) => ps[2 * x] - ps[2 * y] || ps[2 * x + 1] - ps[2 * y + 1]);
+  return order;
+}
+
+function motifBlocks(design: ResolvedDesign, pieces: readonly Piece[]): MotifBlock[] {
+  const byMotif = new Map<string, number[]>();
+  pieces.forEach((p, i) => {
+    let list = byMotif.get(p.motif);
+    if (!list) byMotif.set(p.motif, (list = []));
+    list.push(i);
+  });
+  const families = new Map(design.families.map((f) => [f.id, f]));
+  const motifs = new Map(design.motifs.map((m) => [m.id, m]));
+  const blocks: MotifBlock[] = [];
+  for (const [motif, indices] of byMotif) {
+    const m = motifs.get(motif);
+    const f = m ? families.get(m.family) : undefined;
+    // The pieces of a motif depend only on the group, its family's plane and its outline; the
+    // key also carries the piece ids and planes, so a change in the builder cannot go stale.
+    const key = JSON.stringify([
+      design.symmetry, f?.id, f?.normal, f?.offset, motif, m?.polygon,
+      indices.map((i) => [pieces[i].id, pieces[i].plane, pieces[i].polygon.outer.length]),
+    ]);
+    blocks.push({ key, indices });
+  }
+  return blocks;
+}
+
+/** What {@link assembleReport} needs: the parts of an audit computed elsewhere. */
+export interface ReportParts {
+  readonly design: ResolvedDesign;
+  readonly groupName: string;
+  readonly order: number;
+  readonly pieces: readonly Piece[];
+  readonly templates: readonly Template[];
+  readonly joints: readonly Joint[];
+  /** Findings of the piece builder (coplanar merges and the like). */
+  readonly pieceFindings: readonly Finding[];
+  readonly limits: EffectiveLimits;
+}
+
+const SEVERITY_RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 };
+
+/**
+ * Puts a report together from pieces and joints: summary, components and groups, the joint
+ * findings (grouped by class, see the module notes), the builder's findings and the sheet
+ * estimate. `ok` is true exactly when no finding is an error.
+ */
+export function assembleReport(parts: ReportParts): FullAuditReport {
+  const { design, pieces, joints, limits } = parts;
+  const byKind = Object.fromEntries(JOINT_KINDS.map((k) => [k, 0])) as Record<JointKind, number>;
+  let orthogonal = 0;
+  for (const j of joints) {
+    byKind[j.kind]++;
+    if (j.orthogonal) orthogonal++;
+  }
+  const conn = connectivity(pieces.map((p) => p.id), joints);
+  const motifOf = new Map(pieces.map((p) => [p.id, p.motif]));
+  const findings: Finding[] = [
+    ...jointFindings(joints, motifOf, limits, design.material.thickness),
+    ...disconnectedFinding(conn.groups),
+    ...parts.pieceFindings,
+  ];
+  let sheets: AuditReport['sheets'];
+  if (limits.nesting && limits.sheet && pieces.length > 0) {
+    const result = estimateSheets(pieces, parts.templates, {
+      sheet: limits.sheet,
+      kerf: design.material.kerf,
+      ...(limits.maxSheets !== undefined ? { maxSheets: limits.maxSheets } : {}),
+    });
+    if (result.estimate) sheets = result.estimate;
+    findings.push(...result.findings);
+  }
+  const ordered = findings
+    .map((f, i) => ({ f, i }))
+    .sort((x, y) => SEVERITY_RANK[x.f.severity] - SEVERITY_RANK[y.f.severity] || x.i - y.i)
+    .map((x) => x.f);
+  return {
+    ok: !ordered.some((f) => f.severity === 'error'),
+    group: parts.groupName,
+    order: parts.order,
+    pieces: pieces.length,
+    templates: parts.templates.length,
+    joints,
+    summary: { joints: joints.length, orthogonal, nonOrthogonal: joints.length - orthogonal, byKind },
+    components: conn.components,
+    groups: conn.groups,
+    findings: ordered,
+    ...(sheets ? { sheets } : {}),
+  };
+}
+
+const fmt1 = (x: number): string => x.toFixed(1);
+const fmtLen = (x: number): string => (Math.abs(x) < 10 ? x.toFixed(2) : x.toFixed(1));
+
+interface JointClass {
+  readonly code: string;
+  readonly severity: Severity;
+  readonly example: Joint;
+  count: number;
+  readonly pieces: Set<string>;
+  readonly motifs: readonly [string, string];
+}
+
+/**
+ * The joint findings, one per class of identical problems (same code, motif pair, kind, angle
+ * and length to 0.01): `non-orthogonal-contact`, `locked-crossing`, `short-joint`.
+ */
+export function jointFindings(joints: readonly Joint[], motifOf: ReadonlyMap<string, string>, limits: EffectiveLimits, thickness: number): Finding[] {
+  const classes = new Map<string, JointClass>();
+  const add = (code: string, severity: Severity, j: Joint): void => {
+    const ma = motifOf.get(j.a) ?? j.a, mb = motifOf.get(j.b) ?? j.b;
+    const motifs: [string, string] = ma <= mb ? [ma, mb] : [mb, ma];
+    const key = `${code}|${motifs[0]}|${motifs[1]}|${j.kind}|${Math.round(j.angleDeg * 100)}|${Math.round(j.length * 100)}`;
+    let c = classes.get(key);
+    if (!c) classes.set(key, (c = { code, severity, example: j, count: 0, pieces: new Set(), motifs }));
+    c.count++;
+    c.pieces.add(j.a);
+    c.pieces.add(j.b);
+  };
+  for (const j of joints) {
+    if (!j.orthogonal) add('non-orthogonal-contact', 'error', j);
+    if (j.kind === 'locked-crossing') add('locked-crossing', 'error', j);
+    if (j.orthogonal && j.kind !== 'locked-crossing' && j.length < limits.minJointLength) add('short-joint', 'warning', j);
+  }
+  const out: Finding[] = [];
+  for (const c of classes.values()) {
+    const j = c.example;
+    const where = c.count > 1 ? ` The same happens at ${c.count} joints between ${c.motifs[0]} and ${c.motifs[1]} pieces (all listed).` : '';
+    let message: string;
+    if (c.code === 'non-orthogonal-contact') {
+      message =
+        `${j.a} meets ${j.b} at ${fmt1(j.angleDeg)}°, not 90° (tolerance ±${limits.angleToleranceDeg}°), over ${fmtLen(j.length)} mm; ` +
+        `a laser cuts square to the sheet, so this joint cannot be made.${where} ` +
+        'Change the family normals so the planes are square to each other, or trim the motifs so these pieces no longer touch.';
+    } else if (c.code === 'locked-crossing') {
+      message =
+        `${j.a} and ${j.b} pass through each other over ${fmtLen(j.length)} mm in a way flat parts cannot be assembled: ` +
+        `neither can slide in from its edge, and neither fits through a slot in one straight motion.${where} ` +
+        'Extend one piece to its edge along the crossing (a cross-lap), or narrow the crossing piece on one side to the slot length.';
+    } else {
+      message =
+        `The ${j.kind} joint between ${j.a} and ${j.b} is ${fmtLen(j.length)} mm long, shorter than ${fmtLen(limits.minJointLength)} mm ` +
+        `(${limits.minJointLength === 2 * thickness ? 'twice the material thickness' : 'the brief\'s minimum'}); it may not hold.${where} ` +
+        'Lengthen the contact or add another joint between these pieces.';
+    }
+    out.push({ code: c.code, severity: c.severity, message, pieces: [...c.pieces].sort() });
+  }
+  return out;
+}
+
+function groupLabel(g: readonly string[]): string {
+  const shown = g.slice(0, 3).join(', ');
+  return `${g.length} ${g.length === 1 ? 'piece' : 'pieces'} (${shown}${g.length > 3 ? ', …' : ''})`;
+}
+
+/** The `disconnected` finding when there is more than one group; empty otherwise. */
+export function disconnectedFinding(groups: readonly (readonly string[])[]): Finding[] {
+  if (groups.length <= 1) return [];
+  const message =
+    `The pieces form ${groups.length} separate groups that no usable joint holds together: ` +
+    `${groups.map(groupLabel).join('; ')}. ` +
+    'Add right-angle joints between the groups (contacts that are square and not locked), or remove the loose pieces.';
+  return [{ code: 'disconnected', severity: 'error', message, pieces: groups.slice(1).flat().sort() }];
+}
