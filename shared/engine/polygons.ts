@@ -582,3 +582,58 @@ export function congruent(a: Polygon2 | CongruenceKey, b: Polygon2 | CongruenceK
   }
   return false;
 }
+
+/**
+ * True when every vertex of each polygon lies within `tol` of the other's boundary (and the hole
+ * structure matches): the two are the same shape up to `tol`, whatever their vertices. Used to
+ * collapse images that differ only by curve flattening (a circle flattened to 46 chords, turned
+ * by 72°, is the same cut). Cost is near-linear: edges are bucketed in a grid.
+ */
+export function nearlySamePolygon(a: Polygon2, b: Polygon2, tol: number): boolean {
+  if (a.holes.length !== b.holes.length) return false;
+  const ba = bounds([a.outer]);
+  const bb = bounds([b.outer]);
+  for (let i = 0; i < 4; i++) if (Math.abs(ba[i] - bb[i]) > tol) return false;
+  if (Math.abs(polygonArea(a) - polygonArea(b)) > 2 * tol * (perimeter(a.outer) + perimeter(b.outer))) return false;
+  if (!ringsClose(a.outer, b.outer, tol) || !ringsClose(b.outer, a.outer, tol)) return false;
+  const used = new Array<boolean>(b.holes.length).fill(false);
+  for (const h of a.holes) {
+    const j = b.holes.findIndex((g, k) => !used[k] && ringsClose(h, g, tol) && ringsClose(g, h, tol));
+    if (j < 0) return false;
+    used[j] = true;
+  }
+  return true;
+}
+
+/** Every vertex of `r` within `tol` of some edge of `s`. */
+function ringsClose(r: Ring, s: Ring, tol: number): boolean {
+  const m = s.length;
+  const [x0, y0, x1, y1] = bounds([s]);
+  const cells = Math.max(1, Math.min(256, Math.ceil(Math.sqrt(m))));
+  const cw = Math.max((x1 - x0) / cells, tol, 1e-9);
+  const ch = Math.max((y1 - y0) / cells, tol, 1e-9);
+  const grid = new Map<number, number[]>();
+  const cell = (v: number, o: number, w: number) => Math.max(0, Math.min(cells - 1, Math.floor((v - o) / w)));
+  for (let i = 0; i < m; i++) {
+    const p = s[i];
+    const q = s[(i + 1) % m];
+    const cx0 = cell(Math.min(p[0], q[0]) - tol, x0, cw);
+    const cx1 = cell(Math.max(p[0], q[0]) + tol, x0, cw);
+    const cy0 = cell(Math.min(p[1], q[1]) - tol, y0, ch);
+    const cy1 = cell(Math.max(p[1], q[1]) + tol, y0, ch);
+    for (let cx = cx0; cx <= cx1; cx++) {
+      for (let cy = cy0; cy <= cy1; cy++) {
+        const k = cx * cells + cy;
+        const list = grid.get(k);
+        if (list) list.push(i);
+        else grid.set(k, [i]);
+      }
+    }
+  }
+  for (const p of r) {
+    if (p[0] < x0 - tol || p[0] > x1 + tol || p[1] < y0 - tol || p[1] > y1 + tol) return false;
+    const list = grid.get(cell(p[0], x0, cw) * cells + cell(p[1], y0, ch));
+    if (!list || !list.some((i) => pointSegmentDistance(p, s[i], s[(i + 1) % m]) <= tol)) return false;
+  }
+  return true;
+}
