@@ -140,6 +140,8 @@ function issueMessage(issue: z.core.$ZodIssue, input: unknown): string {
   switch (issue.code) {
     case 'invalid_type':
       if (at === undefined) return 'is required';
+      if (!issue.message.startsWith('Invalid input')) return issue.message;
+      if (issue.expected === 'int') return 'must be a whole number';
       return `must be ${expectedName[issue.expected] ?? issue.expected}, not ${typeName(at)}`;
     case 'unrecognized_keys':
       return `has unknown key${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((k) => `"${k}"`).join(', ')}`;

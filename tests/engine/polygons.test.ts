@@ -22,7 +22,7 @@ import type { Polygon2, Ring } from '../../shared/engine/model.js';
 import { expectClose } from './support.js';
 
 const rect = (x0: number, y0: number, x1: number, y1: number): Ring => [[x0, y0], [x1, y0], [x1, y1], [x0, y1]];
-const poly = (outer: Ring, holes: Ring[] = []): Polygon2 => ({ outer, holes });
+const poly = (outer: Ring, holes: readonly Ring[] = []): Polygon2 => ({ outer, holes });
 const rot = (deg: number): [number, number, number, number] => {
   const a = (deg * Math.PI) / 180;
   return [Math.cos(a), -Math.sin(a), Math.sin(a), Math.cos(a)];
