@@ -357,9 +357,26 @@ export function jointFindings(joints: readonly Joint[], motifOf: ReadonlyMap<str
   return out;
 }
 
-function groupLabel(g: readonly string[]): string {
-  const shown = g.slice(0, 3).join(', ');
-  return `${g.length} ${g.length === 1 ? 'piece' : 'pieces'} (${shown}${g.length > 3 ? ', …' : ''})`;
+function idList(ids: readonly string[], shown = 3): string {
+  return ids.slice(0, shown).join(', ') + (ids.length > shown ? ', …' : '');
+}
+
+/** Groups described by size class: "1 group of 60 pieces (rib-01, …)", "12 groups of 1 piece (…)". */
+function groupSummary(groups: readonly (readonly string[])[]): string {
+  const bySize = new Map<number, (readonly string[])[]>();
+  for (const g of groups) {
+    let list = bySize.get(g.length);
+    if (!list) bySize.set(g.length, (list = []));
+    list.push(g);
+  }
+  return [...bySize.entries()]
+    .map(([size, gs]) => {
+      const unit = size === 1 ? 'piece' : 'pieces';
+      if (gs.length === 1) return `1 group of ${size} ${unit} (${idList(gs[0])})`;
+      const firsts = idList(gs.map((g) => g[0]));
+      return `${gs.length} groups of ${size} ${unit} each (${size === 1 ? firsts : `one each starting ${firsts}`})`;
+    })
+    .join('; ');
 }
 
 /** The `disconnected` finding when there is more than one group; empty otherwise. */
@@ -367,7 +384,7 @@ export function disconnectedFinding(groups: readonly (readonly string[])[]): Fin
   if (groups.length <= 1) return [];
   const message =
     `The pieces form ${groups.length} separate groups that no usable joint holds together: ` +
-    `${groups.map(groupLabel).join('; ')}. ` +
+    `${groupSummary(groups)}. ` +
     'Add right-angle joints between the groups (contacts that are square and not locked), or remove the loose pieces.';
   return [{ code: 'disconnected', severity: 'error', message, pieces: groups.slice(1).flat().sort() }];
 }
