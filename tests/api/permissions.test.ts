@@ -1,0 +1,177 @@
+/**
+ * Every API route × every kind of caller → the expected status. The table must name exactly the
+ * routes the app declares: a new route without an entry (or an entry for a route that is gone)
+ * fails the first test. Bodies are valid, so a status reflects permission, not validation.
+ */
+import type { Express } from 'express';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { listRoutes } from '../../server/app.js';
+import { Invitation, MailMessage } from '../../server/db/entities/index.js';
+import { hashToken, newToken } from '../../server/lib/tokens.js';
+import { DEMO_PASSWORD, DEMO_STUDIO_ID, startTestApp, type TestApp } from './helpers.js';
+
+const CALLERS = ['anonymous', 'admin', 'technician', 'instructor', 'critic', 'participant', 'outsider'] as const;
+type Caller = (typeof CALLERS)[number];
+const EMAIL: Record<Exclude<Caller, 'anonymous'>, string> = {
+  admin: 'admin@example.org',
+  technician: 'technician@example.org',
+  instructor: 'instructor@example.org',
+  critic: 'critic@example.org',
+  participant: 'participant@example.org',
+  outsider: 'outsider@example.org',
+};
+
+interface Call {
+  path: string;
+  body?: object;
+}
+interface Entry {
+  /** Builds the concrete request; called once per caller, so each call gets fresh fixtures. */
+  call: (t: TestApp, caller: Caller) => Promise<Call> | Call;
+  expect: Record<Caller, number>;
+  /** The request changes the caller's session (sign-in, sign-out): use a fresh one. */
+  freshSession?: boolean;
+}
+
+const all = (status: number): Record<Caller, number> => Object.fromEntries(CALLERS.map((c) => [c, status])) as Record<Caller, number>;
+const signedIn = (status: number): Record<Caller, number> => ({ ...all(status), anonymous: 401 });
+const only = (allowed: Caller[], status: number): Record<Caller, number> =>
+  Object.fromEntries(CALLERS.map((c) => [c, c === 'anonymous' ? 401 : allowed.includes(c) ? status : 403])) as Record<Caller, number>;
+const members = (status: number) => only(['admin', 'instructor', 'critic', 'participant'], status);
+const instructors = (status: number) => only(['admin', 'instructor'], status);
+const admins = (status: number) => only(['admin'], status);
+
+let seq = 0;
+const unique = (s: string) => `${s}-${++seq}`;
+
+async function freshMember(t: TestApp): Promise<number> {
+  const email = `${unique('member')}@example.org`;
+  return (await t.addUser(email, 'Fresh Member', { studioId: DEMO_STUDIO_ID, role: 'participant' })).id;
+}
+
+async function freshInvitation(t: TestApp): Promise<{ id: number; token: string }> {
+  const token = newToken();
+  const now = t.clock.now();
+  const inv = await t.ds.getRepository(Invitation).save({
+    studioId: DEMO_STUDIO_ID,
+    email: `${unique('invitee')}@example.org`,
+    role: 'participant' as const,
+    tokenHash: hashToken(token),
+    invitedById: null,
+    createdAt: now,
+    expiresAt: new Date(now.getTime() + 86_400_000),
+    acceptedAt: null,
+    acceptedById: null,
+    revokedAt: null,
+  });
+  return { id: inv.id, token };
+}
+
+const TABLE: Record<string, Entry> = {
+  'GET /api/health': { call: () => ({ path: '/api/health' }), expect: all(200) },
+  'POST /api/auth/login': {
+    call: () => ({ path: '/api/auth/login', body: { email: 'participant@example.org', password: DEMO_PASSWORD } }),
+    expect: all(200),
+    freshSession: true,
+  },
+  'POST /api/auth/logout': { call: () => ({ path: '/api/auth/logout' }), expect: all(204), freshSession: true },
+  'GET /api/auth/me': { call: () => ({ path: '/api/auth/me' }), expect: signedIn(200) },
+  'POST /api/auth/password-reset': { call: () => ({ path: '/api/auth/password-reset', body: { email: 'no-account@example.org' } }), expect: all(202) },
+  'POST /api/auth/password-reset/confirm': {
+    call: () => ({ path: '/api/auth/password-reset/confirm', body: { token: newToken(), password: 'a-long-new-password' } }),
+    expect: all(410),
+  },
+  'GET /api/studios': { call: () => ({ path: '/api/studios' }), expect: signedIn(200) },
+  'POST /api/studios': { call: () => ({ path: '/api/studios', body: { name: unique('Permission Studio') } }), expect: admins(201) },
+  'GET /api/studios/:studioId': { call: () => ({ path: `/api/studios/${DEMO_STUDIO_ID}` }), expect: members(200) },
+  'GET /api/studios/:studioId/members': { call: () => ({ path: `/api/studios/${DEMO_STUDIO_ID}/members` }), expect: members(200) },
+  'PATCH /api/studios/:studioId/members/:userId': {
+    call: async (t) => ({ path: `/api/studios/${DEMO_STUDIO_ID}/members/${await freshMember(t)}`, body: { role: 'critic' } }),
+    expect: instructors(200),
+  },
+  'DELETE /api/studios/:studioId/members/:userId': {
+    call: async (t) => ({ path: `/api/studios/${DEMO_STUDIO_ID}/members/${await freshMember(t)}` }),
+    expect: instructors(204),
+  },
+  'GET /api/studios/:studioId/invitations': { call: () => ({ path: `/api/studios/${DEMO_STUDIO_ID}/invitations` }), expect: instructors(200) },
+  'POST /api/studios/:studioId/invitations': {
+    call: () => ({ path: `/api/studios/${DEMO_STUDIO_ID}/invitations`, body: { email: `${unique('invited')}@example.org`, role: 'participant' } }),
+    expect: instructors(201),
+  },
+  'DELETE /api/studios/:studioId/invitations/:invitationId': {
+    call: async (t) => ({ path: `/api/studios/${DEMO_STUDIO_ID}/invitations/${(await freshInvitation(t)).id}` }),
+    expect: instructors(204),
+  },
+  'GET /api/invitations/:token': { call: async (t) => ({ path: `/api/invitations/${(await freshInvitation(t)).token}` }), expect: all(200) },
+  // A newcomer's invitation: anyone signed in as another account is refused.
+  'POST /api/invitations/:token/accept': {
+    call: async (t) => ({ path: `/api/invitations/${(await freshInvitation(t)).token}/accept`, body: { name: 'New Person', password: 'new-person-password' } }),
+    expect: { ...all(403), anonymous: 201 },
+  },
+  'GET /api/admin/users': { call: () => ({ path: '/api/admin/users' }), expect: admins(200) },
+  'PATCH /api/admin/users/:userId': {
+    call: async (t) => ({ path: `/api/admin/users/${await freshMember(t)}`, body: { globalRole: 'technician' } }),
+    expect: admins(200),
+  },
+  'GET /api/admin/outbox': { call: () => ({ path: '/api/admin/outbox' }), expect: admins(200) },
+  'GET /api/admin/outbox/:messageId': {
+    call: async (t) => {
+      const m = await t.ds.getRepository(MailMessage).save({ from: 'a@example.org', to: 'b@example.org', subject: 's', text: 't', html: null, rawSize: 1, receivedAt: t.clock.now() });
+      return { path: `/api/admin/outbox/${m.id}` };
+    },
+    expect: admins(200),
+  },
+};
+
+/** Route layers Express actually holds (catches a route added without `defineRoutes`). */
+function expressRouteCount(app: Express): number {
+  let n = 0;
+  const walk = (stack: { route?: { path: string; methods: Record<string, boolean> }; handle?: { stack?: unknown[] } }[]) => {
+    for (const layer of stack) {
+      if (layer.route) {
+        if (layer.route.path !== '/{*splat}') n += Object.keys(layer.route.methods).filter((m) => m !== '_all').length;
+      } else if (layer.handle?.stack) walk(layer.handle.stack as never);
+    }
+  };
+  walk((app as unknown as { router: { stack: never } }).router.stack);
+  return n;
+}
+
+let t: TestApp;
+const cookies = new Map<Caller, string>();
+beforeAll(async () => {
+  t = await startTestApp();
+  await t.addUser(EMAIL.outsider, 'Olu Outsider');
+  for (const c of CALLERS) if (c !== 'anonymous') cookies.set(c, await t.cookieFor(EMAIL[c]));
+});
+afterAll(async () => {
+  await t.close();
+});
+
+describe('permission table', () => {
+  it('names every declared route, and only those', () => {
+    const declared = listRoutes(t.app).map((r) => `${r.method} ${r.path}`).sort();
+    expect(Object.keys(TABLE).sort()).toEqual(declared);
+    expect(expressRouteCount(t.app)).toBe(declared.length);
+  });
+
+  for (const [key, entry] of Object.entries(TABLE)) {
+    const [method, pattern] = key.split(' ');
+    it(`${key}`, async () => {
+      const got: Record<string, number> = {};
+      for (const caller of CALLERS) {
+        const { path, body } = await entry.call(t, caller);
+        expect(path.includes(':'), `${key} left a placeholder in ${path}`).toBe(false);
+        let cookie = caller === 'anonymous' ? undefined : cookies.get(caller);
+        if (entry.freshSession && caller !== 'anonymous') cookie = await t.cookieFor(EMAIL[caller]);
+        let req = request(t.app)[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](path);
+        if (cookie) req = req.set('Cookie', cookie);
+        const res = body ? await req.send(body) : await req;
+        got[caller] = res.status;
+        if (res.status >= 400) expect(res.body?.error?.code, `${caller} ${key}: ${res.text}`).toBeTypeOf('string');
+      }
+      expect(got, `${method} ${pattern}`).toEqual(entry.expect);
+    });
+  }
+});
