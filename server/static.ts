@@ -17,6 +17,11 @@ export function clientRouter(clientDir: string | null): Router {
     );
     router.use(express.static(clientDir, { index: false, maxAge: 0 }));
   }
+  // A missing hashed asset (an old tab after a deploy) must not become index.html, which the
+  // browser would try to run as a script.
+  router.use('/assets', (_req, res) => {
+    res.status(404).type('text/plain').send('Not found');
+  });
   router.get('/{*splat}', (req, res, next) => {
     if (req.path === '/api' || req.path.startsWith('/api/')) return next();
     if (index && existsSync(index)) {
