@@ -24,10 +24,9 @@
 import { getGroup } from './groups.js';
 import type { AuditReport, Finding, Joint, JointKind, Piece, ResolvedDesign, Severity, Template } from './model.js';
 import { JOINT_KINDS } from './model.js';
-import { DEFAULT_ANGLE_TOLERANCE_DEG, type PreparedPiece, jointContext, pairJoints, preparePiece } from './joints.js';
+import { DEFAULT_ANGLE_TOLERANCE_DEG, type PreparedPiece, contactPad, jointContext, pairJoints, preparePiece } from './joints.js';
 import { connectivity } from './connectivity.js';
 import { overlappingPairs, pieceBoxes } from './spatial.js';
-import { LENGTH_TOL } from './tolerance.js';
 import { estimateSheets } from './sheets.js';
 import { createPieceBuilder } from './pieces.js';
 import { parseDesign, type InputIssue } from './design.js';
@@ -155,7 +154,7 @@ export function createAuditor(): Auditor {
       const indexOf = new Map<string, number>();
       pieces.forEach((p, i) => indexOf.set(p.id, i));
 
-      const pairs = overlappingPairs(pieceBoxes(pieces, ctx.half + LENGTH_TOL));
+      const pairs = overlappingPairs(pieceBoxes(pieces, contactPad(pieces, ctx.half)));
       const pairsByBlock = new Map<number, number[]>();
       const nb = blocks.length;
       for (let k = 0; k < pairs.length; k += 2) {

@@ -469,8 +469,40 @@ export function jointsBetween(a: Piece, b: Piece, options: JointOptions): Joint[
 }
 
 /**
- * Every joint among `pieces` (FORMAT.md §3). Pairs are pruned with bounding boxes grown by t/2
- * in a uniform grid ({@link overlappingPairs}) before the exact chord test; pairs are visited
+ * How far bounding boxes must be grown so that box pruning never loses a contact: for two
+ * planes at angle θ, a contact point of A and one of B at the same place on L lie within
+ * r = t / (2 sin θ) of a common point, so boxes grown by the largest r over the pairs of
+ * distinct, non-parallel plane directions among `pieces` overlap whenever the pieces touch.
+ * t/2 (+ {@link LENGTH_TOL}) when every pair of planes is square (or there is one direction).
+ */
+export function contactPad(pieces: readonly Piece[], half: number): number {
+  const dirs: number[] = [];
+  const seen = new Set<string>();
+  for (const p of pieces) {
+    let [x, y, z] = p.frame.normal;
+    // One entry per line (n and −n alike), to 1e-9.
+    if (x < -1e-12 || (Math.abs(x) <= 1e-12 && (y < -1e-12 || (Math.abs(y) <= 1e-12 && z < 0)))) { x = -x; y = -y; z = -z; }
+    const key = `${Math.round(x * 1e9)},${Math.round(y * 1e9)},${Math.round(z * 1e9)}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    dirs.push(x, y, z);
+  }
+  let minSin = 1;
+  for (let i = 0; i < dirs.length; i += 3) {
+    for (let j = i + 3; j < dirs.length; j += 3) {
+      const cx = dirs[i + 1] * dirs[j + 2] - dirs[i + 2] * dirs[j + 1];
+      const cy = dirs[i + 2] * dirs[j] - dirs[i] * dirs[j + 2];
+      const cz = dirs[i] * dirs[j + 1] - dirs[i + 1] * dirs[j];
+      const sin = Math.sqrt(cx * cx + cy * cy + cz * cz);
+      if (sin >= PARALLEL_SIN && sin < minSin) minSin = sin;
+    }
+  }
+  return half / minSin + LENGTH_TOL;
+}
+
+/**
+ * Every joint among `pieces` (FORMAT.md §3). Pairs are pruned with bounding boxes grown by
+ * {@link contactPad} in a uniform grid ({@link overlappingPairs}) before the exact chord test; pairs are visited
  * with i < j in the given order, so a joint's `a` comes before its `b` in `pieces`, and the
  * result is ordered by (a, b) position, then along the joint line. Empty for fewer than two
  * pieces. Throws RangeError when the thickness is not positive.
@@ -478,7 +510,7 @@ export function jointsBetween(a: Piece, b: Piece, options: JointOptions): Joint[
 export function findJoints(pieces: readonly Piece[], options: JointOptions): Joint[] {
   const ctx = jointContext(options);
   const prepared = pieces.map(preparePiece);
-  const pairs = overlappingPairs(pieceBoxes(pieces, ctx.half + LENGTH_TOL));
+  const pairs = overlappingPairs(pieceBoxes(pieces, contactPad(pieces, ctx.half)));
   const out: Joint[] = [];
   for (let k = 0; k < pairs.length; k += 2) pairJoints(prepared[pairs[k]], prepared[pairs[k + 1]], ctx, out);
   return out;

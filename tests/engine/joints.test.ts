@@ -7,7 +7,7 @@
 // Reach: a piece counts inside the band |h| ≤ t/2 of the other plane, so its chord on the line L
 // is the projection onto L of its part within t/2 of the other plane.
 import { describe, expect, it } from 'vitest';
-import { findJoints, jointsBetween, pairJoints, preparePiece, jointContext } from '../../shared/engine/joints.js';
+import { contactPad, findJoints, jointsBetween, pairJoints, preparePiece, jointContext } from '../../shared/engine/joints.js';
 import { planeFrame, toFrame } from '../../shared/engine/frames.js';
 import type { Piece } from '../../shared/engine/model.js';
 import type { Vec2, Vec3 } from '../../shared/engine/vec.js';
@@ -299,6 +299,24 @@ describe('findJoints', () => {
         for (const jt of jointsBetween(pieces[i], pieces[j], T3)) brute.push(`${jt.a}|${jt.b}|${jt.kind}|${jt.length}`);
     expect(fast.length).toBeGreaterThan(10);
     expect(fast.map((jt) => `${jt.a}|${jt.b}|${jt.kind}|${jt.length}`)).toEqual(brute);
+  });
+
+  it('when planes meet at 20°, grows the pruning boxes enough to keep a contact the reach rule makes', () => {
+    // A: z = 0, x ∈ [−50, −3]; B: through the y axis at 20° to A (normal (−sin 20°, 0, cos 20°)),
+    // covering in-plane distances w ∈ [3, 50] from the y axis on the +x side, y ∈ [−10, 10].
+    // Each edge is 3 · sin 20° = 1.03 mm from the other plane (< t/2 = 1.5): both reach L over
+    // y ∈ [−10, 10]. Their boxes grown by t/2 do not overlap (A ends at x = −1.5, B starts at
+    // x = 3 cos 20° − 1.5 = 1.32), so a pad of t/2 alone would lose this 20 mm contact; the pad
+    // t / (2 sin 20°) = 4.39 mm keeps it.
+    const a = inZ('a-01', -50, -3, -10, 10);
+    const s20 = Math.sin((20 * Math.PI) / 180), c20 = Math.cos((20 * Math.PI) / 180);
+    const w = (d: number, y: number): Vec3 => [d * c20, y, d * s20];
+    const b = piece('b-01', [-s20, 0, c20], 0, [w(3, -10), w(50, -10), w(50, 10), w(3, 10)]);
+    const found = findJoints([a, b], T3);
+    expect(found).toHaveLength(1);
+    expect(found[0].angleDeg).toBeCloseTo(20, 6);
+    expect(found[0].length).toBeCloseTo(20, 6);
+    expect(contactPad([a, b], 1.5)).toBeCloseTo(1.5 / s20 + 0.001, 9);
   });
 
   it('is empty for fewer than two pieces', () => {
