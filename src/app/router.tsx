@@ -48,13 +48,27 @@ function requireAdmin(queryClient: QueryClient) {
 }
 
 export function createAppRouter(queryClient: QueryClient) {
-  const lazy = (load: () => Promise<RouteModule>) => async () => {
+  // React Router runs the loaders of all matched routes at once, so a screen's loader first
+  // repeats its parents' guard; otherwise a signed-out or non-admin visit would still fire the
+  // screen's own requests.
+  type Guard = (args: LoaderFunctionArgs) => Promise<unknown>;
+  const lazy = (load: () => Promise<RouteModule>, guard?: Guard) => async () => {
     const module = await load();
+    const loader = module.makeLoader?.(queryClient);
     return {
       Component: module.Component,
-      ...(module.makeLoader ? { loader: module.makeLoader(queryClient) } : {}),
+      ...(loader
+        ? {
+            loader: async (args: LoaderFunctionArgs) => {
+              if (guard) await guard(args);
+              return loader(args);
+            },
+          }
+        : {}),
     };
   };
+  const signedIn = requireSession(queryClient);
+  const admin = requireAdmin(queryClient);
 
   return createBrowserRouter([
     {
@@ -75,24 +89,24 @@ export function createAppRouter(queryClient: QueryClient) {
             { path: 'invitations/:token', lazy: lazy(() => import('./routes/invitation.js')) },
             {
               id: 'signed-in',
-              loader: requireSession(queryClient),
+              loader: signedIn,
               Component: SignedInOutlet,
               children: [
-                { index: true, lazy: lazy(() => import('./routes/dashboard.js')) },
-                { path: 'studios/:studioId', lazy: lazy(() => import('./routes/studio.js')) },
+                { index: true, lazy: lazy(() => import('./routes/dashboard.js'), signedIn) },
+                { path: 'studios/:studioId', lazy: lazy(() => import('./routes/studio.js'), signedIn) },
                 {
                   path: 'admin',
-                  loader: requireAdmin(queryClient),
+                  loader: admin,
                   children: [
                     { index: true, loader: () => redirect('/admin/users') },
-                    { path: 'users', lazy: lazy(() => import('./routes/admin-users.js')) },
-                    { path: 'studios', lazy: lazy(() => import('./routes/admin-studios.js')) },
+                    { path: 'users', lazy: lazy(() => import('./routes/admin-users.js'), admin) },
+                    { path: 'studios', lazy: lazy(() => import('./routes/admin-studios.js'), admin) },
                     {
                       path: 'outbox',
-                      lazy: lazy(() => import('./routes/admin-outbox.js')),
+                      lazy: lazy(() => import('./routes/admin-outbox.js'), admin),
                       children: [
-                        { index: true, lazy: lazy(() => import('./routes/admin-outbox-empty.js')) },
-                        { path: ':mailId', lazy: lazy(() => import('./routes/admin-mail.js')) },
+                        { index: true, lazy: lazy(() => import('./routes/admin-outbox-empty.js'), admin) },
+                        { path: ':mailId', lazy: lazy(() => import('./routes/admin-mail.js'), admin) },
                       ],
                     },
                   ],

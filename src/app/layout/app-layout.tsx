@@ -1,5 +1,5 @@
 import { Suspense } from 'react';
-import { Navigate, Outlet, useLocation, useNavigation } from 'react-router-dom';
+import { Link, Outlet, useLocation, useNavigation } from 'react-router-dom';
 import { PageSkeleton } from '../../components/ui/spinner.js';
 import { useMe } from '../../features/auth/api/get-me.js';
 import { signInPath } from '../../lib/api-client.js';
@@ -49,10 +49,23 @@ export function AppLayout() {
   );
 }
 
-/** Children render only for a signed-in person; after sign-out or expiry it goes to sign-in. */
+/**
+ * Children render only for a signed-in person. Loaders redirect signed-out visits; when the
+ * session ends while a screen is open (sign-out, or expiry noticed by the API client) whoever
+ * noticed navigates, and until then this says so instead of racing them with a redirect of its own.
+ */
 export function SignedInOutlet() {
   const { data: user } = useMe();
   const location = useLocation();
-  if (!user) return <Navigate to={signInPath(`${location.pathname}${location.search}`)} replace />;
+  if (!user) {
+    return (
+      <div className="mx-auto max-w-xl space-y-3 py-10" role="status">
+        <h1 className="text-2xl font-semibold">You are signed out</h1>
+        <p className="text-ink-soft">
+          <Link to={signInPath(`${location.pathname}${location.search}`)}>Sign in again</Link> to continue here.
+        </p>
+      </div>
+    );
+  }
   return <Outlet />;
 }

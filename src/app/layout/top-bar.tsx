@@ -1,4 +1,4 @@
-import { Link, NavLink, useNavigate } from 'react-router-dom';
+import { Link, NavLink, useLocation, useNavigate } from 'react-router-dom';
 import type { SessionUser } from '../../../shared/api/auth.js';
 import { Button } from '../../components/ui/button.js';
 import { cn } from '../../components/ui/cn.js';
@@ -32,6 +32,7 @@ export function SignOutButton({ size = 'sm', to = '/sign-in' }: { size?: 'sm' | 
 }
 
 export function TopBar({ user }: { user: SessionUser | null }) {
+  const { pathname } = useLocation();
   return (
     <header className="border-b border-rule bg-paper-raised/90 backdrop-blur-sm">
       <div className="mx-auto flex max-w-sheet flex-wrap items-center gap-x-6 gap-y-2 px-5 py-3 sm:px-8">
@@ -73,7 +74,7 @@ export function TopBar({ user }: { user: SessionUser | null }) {
               {user.globalRole ? <RoleBadge role={user.globalRole} /> : null}
               <SignOutButton />
             </>
-          ) : (
+          ) : pathname === '/sign-in' ? null : (
             <NavLink to="/sign-in" className="text-sm font-medium">
               Sign in
             </NavLink>

@@ -1,11 +1,12 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import type { GlobalRole, StudioRole } from '../../../shared/api/roles.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
 import { ErrorState } from '../../components/ui/error-state.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { RoleBadge } from '../../components/ui/role-badge.js';
 import { Skeleton } from '../../components/ui/spinner.js';
-import { useMe } from '../../features/auth/api/get-me.js';
+import { meQueryOptions, useMe } from '../../features/auth/api/get-me.js';
 import { invitationsQueryOptions, useInvitations } from '../../features/studios/api/get-invitations.js';
 import { membersQueryOptions, useMembers } from '../../features/studios/api/get-members.js';
 import { studioQueryOptions, useStudio } from '../../features/studios/api/get-studio.js';
@@ -14,6 +15,11 @@ import { InviteForm } from '../../features/studios/components/invite-form.js';
 import { MembersTable } from '../../features/studios/components/members-table.js';
 import { formatDate } from '../../lib/format.js';
 import { useDocumentTitle } from '../../lib/use-document-title.js';
+
+/** Mirrors the server's policy (which decides): instructors of the studio, and admins everywhere. */
+function canManageStudio(myRole: StudioRole | null, globalRole: GlobalRole | null): boolean {
+  return myRole === 'instructor' || globalRole === 'admin';
+}
 
 function parseStudioId(raw: string | undefined): number {
   const id = Number(raw);
@@ -26,11 +32,14 @@ function parseStudioId(raw: string | undefined): number {
 export function makeLoader(queryClient: QueryClient) {
   return async ({ params }: LoaderFunctionArgs) => {
     const studioId = parseStudioId(params.studioId);
-    const studio = await queryClient.ensureQueryData(studioQueryOptions(studioId));
+    const [studio, me] = await Promise.all([
+      queryClient.ensureQueryData(studioQueryOptions(studioId)),
+      queryClient.ensureQueryData(meQueryOptions()),
+    ]);
     // Lists that may be refused show their own message in their card, so they do not fail the page.
     await Promise.allSettled([
       queryClient.ensureQueryData(membersQueryOptions(studioId)),
-      studio.myRole === 'instructor' ? queryClient.ensureQueryData(invitationsQueryOptions(studioId)) : null,
+      canManageStudio(studio.myRole, me?.globalRole ?? null) ? queryClient.ensureQueryData(invitationsQueryOptions(studioId)) : null,
     ]);
     return null;
   };
@@ -51,7 +60,7 @@ export function Component() {
   const studioId = parseStudioId(useParams().studioId);
   const { data: studio } = useStudio(studioId);
   const { data: me } = useMe();
-  const canManage = studio.myRole === 'instructor';
+  const canManage = canManageStudio(studio.myRole, me?.globalRole ?? null);
   const members = useMembers(studioId);
   const invitations = useInvitations(studioId, canManage);
   useDocumentTitle(studio.name);

@@ -134,5 +134,5 @@ export function InlineSelect({
   ref,
   ...rest
 }: SelectHTMLAttributes<HTMLSelectElement> & { ref?: Ref<HTMLSelectElement> }) {
-  return <select ref={ref} className={controlClasses(false, cn('w-auto py-1 text-sm', className))} {...rest} />;
+  return <select ref={ref} className={controlClasses(false, cn('h-8 w-auto py-0 pl-2 text-sm', className))} {...rest} />;
 }
