@@ -119,13 +119,25 @@ export async function openBrowser(): Promise<Browser> {
   };
 }
 
-/** Collects console errors and failed requests so a test can assert the page ran cleanly. */
+/**
+ * Collects console errors, page errors, failed requests and error responses so a test can assert
+ * the page ran cleanly. The signed-out probe of `/api/auth/me` (401 by contract) is expected and
+ * left out; the browser's own "Failed to load resource" console line duplicates the response entry.
+ */
 export function watchPage(page: Page): { problems: string[] } {
   const problems: string[] = [];
   page.on('console', (m) => {
-    if (m.type() === 'error') problems.push(`console: ${m.text()}`);
+    if (m.type() === 'error' && !m.text().startsWith('Failed to load resource')) problems.push(`console: ${m.text()}`);
   });
   page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
-  page.on('requestfailed', (r) => problems.push(`request failed: ${r.url()} ${r.failure()?.errorText ?? ''}`));
+  page.on('requestfailed', (r) => {
+    // ERR_ABORTED is the browser cancelling a request because the page navigated away.
+    const reason = r.failure()?.errorText ?? '';
+    if (reason !== 'net::ERR_ABORTED') problems.push(`request failed: ${r.url()} ${reason}`);
+  });
+  page.on('response', (r) => {
+    const path = new URL(r.url()).pathname;
+    if (r.status() >= 400 && !(r.status() === 401 && path === '/api/auth/me')) problems.push(`HTTP ${r.status()}: ${path}`);
+  });
   return { problems };
 }
