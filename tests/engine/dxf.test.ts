@@ -107,9 +107,12 @@ describe('parseDxf', () => {
   });
 
   it('refuses splines with a way out', () => {
-    const d = new Drawing();
-    d.drawSpline([[0, 0], [5, 5], [10, 0], [15, 5]], 3);
-    const r = parseDxf(d.toDxfString());
+    // dxf-writer's types omit drawSpline; write the entity by hand (group 71 degree, 10/20 control points).
+    const text = handDxf(4, [[0, 0], [1, 0], [1, 1]]).replace(
+      '0\nLWPOLYLINE',
+      ['0', 'SPLINE', '8', 'cut', '71', '3', '72', '0', '73', '4', '10', '0', '20', '0', '10', '5', '20', '5', '10', '10', '20', '0', '10', '15', '20', '5', '0', 'LWPOLYLINE'].join('\n'),
+    );
+    const r = parseDxf(text);
     expect(!r.ok && r.errors[0]).toMatch(/SPLINE.*convert/);
   });
 
