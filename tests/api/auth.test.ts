@@ -86,7 +86,7 @@ describe('POST /api/auth/login', () => {
 
 describe('GET /api/auth/me', () => {
   it('returns the signed-in user', async () => {
-    const cookie = await t.cookieFor('admin@example.org');
+    const cookie = await t.signIn('admin@example.org');
     const res = await request(t.app).get('/api/auth/me').set('Cookie', cookie);
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ email: 'admin@example.org', globalRole: 'admin', memberships: [] });

@@ -2,6 +2,7 @@
  * A real app on a fresh SQLite file: migrations run, the demo seeded (one bcrypt hash per test
  * file), the in-process SMTP sink listening, nodemailer talking to it. Nothing is mocked.
  */
+import { createHmac, randomBytes } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -11,7 +12,7 @@ import type { DataSource } from 'typeorm';
 import { createApp } from '../../server/app.js';
 import type { AppContext } from '../../server/context.js';
 import { openDatabase } from '../../server/db/data-source.js';
-import { MailMessage, Membership, User } from '../../server/db/entities/index.js';
+import { MailMessage, Membership, Session, User } from '../../server/db/entities/index.js';
 import { hashPassword } from '../../server/lib/password.js';
 import { createMailService, type MailService } from '../../server/mail/mail-service.js';
 import { startMailSink, type MailSink } from '../../server/mail/sink.js';
@@ -50,8 +51,14 @@ export interface TestApp {
   ctx: AppContext;
   databasePath: string;
   dir: string;
-  /** Signs in and returns the session cookie. */
-  cookieFor(email: string, password?: string): Promise<string>;
+  /** Signs in through POST /api/auth/login (one bcrypt compare) and returns the session cookie. */
+  signIn(email: string, password?: string): Promise<string>;
+  /**
+   * A session cookie for the account without running bcrypt: writes the session row the way
+   * express-session + passport would and signs the id with the app's secret. For tests about
+   * something other than signing in.
+   */
+  cookieFor(email: string): Promise<string>;
   outbox(): Promise<MailMessage[]>;
   /** A user (demo password) with an optional membership of `studioId`. */
   addUser(email: string, name: string, membership?: { studioId: number; role: Membership['role'] }): Promise<User>;
@@ -94,7 +101,20 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
     ctx,
     databasePath,
     dir,
-    async cookieFor(email, password = DEMO_PASSWORD) {
+    async cookieFor(email) {
+      const user = await ds.getRepository(User).findOneBy({ email });
+      if (!user) throw new Error(`no account ${email}`);
+      const sid = randomBytes(24).toString('base64url');
+      const maxAge = 14 * 24 * 60 * 60 * 1000;
+      const json = JSON.stringify({
+        cookie: { originalMaxAge: maxAge, expires: new Date(Date.now() + maxAge).toISOString(), secure: false, httpOnly: true, path: '/', sameSite: 'lax' },
+        passport: { user: user.id },
+      });
+      await ds.getRepository(Session).insert({ id: sid, json, expiredAt: Date.now() + maxAge });
+      const signature = createHmac('sha256', ctx.config.sessionSecret).update(sid).digest('base64').replace(/=+$/, '');
+      return `planewright.sid=${encodeURIComponent(`s:${sid}.${signature}`)}`;
+    },
+    async signIn(email, password = DEMO_PASSWORD) {
       const res = await request(app).post('/api/auth/login').send({ email, password });
       if (res.status !== 200) throw new Error(`sign-in as ${email} answered ${res.status}: ${JSON.stringify(res.body)}`);
       return sessionCookie(res);

@@ -13,7 +13,7 @@ afterAll(async () => {
 
 describe('session persistence', () => {
   it('keeps a session across an app restart on the same database file', async () => {
-    const cookie = await t.cookieFor('critic@example.org');
+    const cookie = await t.signIn('critic@example.org');
     const restarted = await startTestApp({ databasePath: t.databasePath });
     try {
       const res = await request(restarted.app).get('/api/auth/me').set('Cookie', cookie);
