@@ -4,15 +4,18 @@
  * plane of every family's orbit.
  *
  * Method: start from a cube far larger than any sculpture and clip it by each half-space in turn,
- * keeping the solid as a list of faces (vertex loops) over one pool of vertices. Lengths follow
- * FORMAT.md §1 "Tolerance": a vertex within {@link LENGTH_TOL} of a plane is on it, vertices closer
- * than that are one, and faces that shrink below it vanish. When a face of the starting cube
- * survives, the planes do not close a solid.
+ * keeping the solid as a list of faces (vertex loops) over one pool of vertices; each cut's new
+ * face is built from the rim edges of its neighbours, so the surface stays closed. Topology is
+ * decided at rounding precision; FORMAT.md §1 "Tolerance" is applied once at the end: planes whose
+ * normals agree within {@link ANGLE_TOL} are one direction, vertices joined by an edge shorter than
+ * {@link LENGTH_TOL} are one (so edges and faces smaller than that vanish), and points left on a
+ * straight edge are dropped. Vertices are then moved onto their face planes' meeting point. When a
+ * face of the starting cube survives, the planes do not close a solid.
  */
 import type { RotationGroup } from './groups.js';
 import { type PlaneFrame, planeFrame } from './frames.js';
 import { planeOrbit } from './orbits.js';
-import { LENGTH_TOL, toDegrees } from './tolerance.js';
+import { ANGLE_TOL, LENGTH_TOL, toDegrees } from './tolerance.js';
 import { type Vec2, type Vec3, angleBetween, dot, normalize } from './vec.js';
 
 /** One bounding plane {x : x·normal = offset}; the solid lies on the side x·normal ≤ offset. */
@@ -76,6 +79,9 @@ export const ENVELOPE_REACH = 1e5;
 
 const BOX_FAMILY = -1;
 
+/** Squared chord between unit normals below which they are one direction (angle < ANGLE_TOL). */
+const SAME_DIRECTION = ANGLE_TOL * ANGLE_TOL;
+
 interface WorkFace {
   family: number;
   normal: Vec3;
@@ -83,47 +89,27 @@ interface WorkFace {
   verts: number[];
 }
 
-/** Vertex pool that merges points closer than `tol` (spatial hash with cells of size tol). */
+/** Vertex store: flat coordinates, one id per vertex. */
 class VertexPool {
   readonly xyz: number[] = [];
-  private readonly cells = new Map<string, number[]>();
-  constructor(private readonly tol: number) {}
 
   get size(): number {
     return this.xyz.length / 3;
   }
 
   add(x: number, y: number, z: number): number {
-    const t = this.tol;
-    const cx = Math.floor(x / t);
-    const cy = Math.floor(y / t);
-    const cz = Math.floor(z / t);
-    const t2 = t * t;
-    for (let dx = -1; dx <= 1; dx++) {
-      for (let dy = -1; dy <= 1; dy++) {
-        for (let dz = -1; dz <= 1; dz++) {
-          const ids = this.cells.get(`${cx + dx},${cy + dy},${cz + dz}`);
-          if (!ids) continue;
-          for (const id of ids) {
-            const ex = this.xyz[3 * id] - x;
-            const ey = this.xyz[3 * id + 1] - y;
-            const ez = this.xyz[3 * id + 2] - z;
-            if (ex * ex + ey * ey + ez * ez < t2) return id;
-          }
-        }
-      }
-    }
-    const id = this.size;
     this.xyz.push(x, y, z);
-    const key = `${cx},${cy},${cz}`;
-    const list = this.cells.get(key);
-    if (list) list.push(id);
-    else this.cells.set(key, [id]);
-    return id;
+    return this.size - 1;
   }
 
   point(id: number): Vec3 {
     return [this.xyz[3 * id], this.xyz[3 * id + 1], this.xyz[3 * id + 2]];
+  }
+
+  set(id: number, p: Vec3): void {
+    this.xyz[3 * id] = p[0];
+    this.xyz[3 * id + 1] = p[1];
+    this.xyz[3 * id + 2] = p[2];
   }
 }
 
@@ -151,40 +137,91 @@ function orderAround(pool: VertexPool, ids: readonly number[], n: Vec3): number[
     .map((p) => p.id);
 }
 
-function dedupeLoop(verts: number[]): number[] {
+function dedupeLoop(verts: readonly number[]): number[] {
   const out: number[] = [];
   for (const v of verts) if (out[out.length - 1] !== v) out.push(v);
   while (out.length > 1 && out[0] === out[out.length - 1]) out.pop();
   return out;
 }
 
+/**
+ * Rounding allowance of a signed distance n·p − d: a few hundred units in the last place of the
+ * magnitudes involved. Topology is decided this finely, so that nearly coincident planes still
+ * cut consistently; the length tolerance is applied once, at the end ({@link collapseShortEdges}).
+ */
+const ROUNDING = 1e-10;
+
+/**
+ * Per-vertex scratch of one envelope computation, indexed by vertex id and reused across cuts
+ * (a cut marks the entries it wrote with its own stamp), so the hot loop allocates nothing.
+ */
+class Scratch {
+  s = new Float64Array(256);
+  side = new Int8Array(256);
+  seen = new Int32Array(256);
+  cap = new Int32Array(256);
+  stamp = 0;
+
+  fit(n: number): void {
+    if (n <= this.s.length) return;
+    const size = Math.max(n, 2 * this.s.length);
+    const grow = <T extends Float64Array | Int8Array | Int32Array>(a: T, make: (k: number) => T): T => {
+      const b = make(size);
+      b.set(a as never);
+      return b;
+    };
+    this.s = grow(this.s, (k) => new Float64Array(k));
+    this.side = grow(this.side, (k) => new Int8Array(k));
+    this.seen = grow(this.seen, (k) => new Int32Array(k));
+    this.cap = grow(this.cap, (k) => new Int32Array(k));
+  }
+}
+
+/** Key of an unordered vertex pair, as a number (ids stay far below 2^26). */
+const pairKey = (a: number, b: number) => (a < b ? a * 67108864 + b : b * 67108864 + a);
+
 /** Clips the solid by {x : x·n ≤ d}. Returns the new face list (the input is not changed). */
-function clip(pool: VertexPool, faces: readonly WorkFace[], plane: { normal: Vec3; offset: number; family: number }, eps: number): WorkFace[] {
+function clip(pool: VertexPool, faces: readonly WorkFace[], plane: { normal: Vec3; offset: number; family: number }, sc: Scratch): WorkFace[] {
   const [nx, ny, nz] = plane.normal;
   const d = plane.offset;
-  const s = new Map<number, number>();
+  const stamp = ++sc.stamp;
+  sc.fit(pool.size);
+  // side: −1 inside, 0 on the plane, +1 outside.
   let outside = false;
+  const x = pool.xyz;
   for (const f of faces) {
     for (const id of f.verts) {
-      if (s.has(id)) continue;
-      const v = nx * pool.xyz[3 * id] + ny * pool.xyz[3 * id + 1] + nz * pool.xyz[3 * id + 2] - d;
-      s.set(id, v);
-      if (v > eps) outside = true;
+      if (sc.seen[id] === stamp) continue;
+      sc.seen[id] = stamp;
+      const px = x[3 * id];
+      const py = x[3 * id + 1];
+      const pz = x[3 * id + 2];
+      const v = nx * px + ny * py + nz * pz - d;
+      const eps = ROUNDING * (Math.abs(px) + Math.abs(py) + Math.abs(pz) + d);
+      sc.s[id] = v;
+      const k = v > eps ? 1 : v < -eps ? -1 : 0;
+      sc.side[id] = k;
+      if (k > 0) outside = true;
     }
   }
   if (!outside) return faces as WorkFace[];
 
-  const cut = new Map<string, number>();
-  const capIds = new Set<number>();
+  const cut = new Map<number, number>();
+  const capIds: number[] = [];
+  const addCap = (id: number) => {
+    sc.fit(id + 1);
+    if (sc.cap[id] !== stamp) {
+      sc.cap[id] = stamp;
+      capIds.push(id);
+    }
+  };
   const crossing = (a: number, b: number): number => {
-    const [i, j] = a < b ? [a, b] : [b, a];
-    const key = `${i},${j}`;
+    const key = pairKey(a, b);
     const hit = cut.get(key);
     if (hit !== undefined) return hit;
-    const si = s.get(i)!;
-    const sj = s.get(j)!;
-    const t = si / (si - sj);
-    const x = pool.xyz;
+    const i = Math.min(a, b);
+    const j = Math.max(a, b);
+    const t = sc.s[i] / (sc.s[i] - sc.s[j]);
     const id = pool.add(
       x[3 * i] + t * (x[3 * j] - x[3 * i]),
       x[3 * i + 1] + t * (x[3 * j + 1] - x[3 * i + 1]),
@@ -197,66 +234,137 @@ function clip(pool: VertexPool, faces: readonly WorkFace[], plane: { normal: Vec
   const next: WorkFace[] = [];
   for (const f of faces) {
     const vs = f.verts;
-    const out: number[] = [];
     let changed = false;
+    for (const id of vs) if (sc.side[id] > 0) changed = true;
+    if (!changed) {
+      for (const id of vs) if (sc.side[id] === 0) addCap(id);
+      next.push(f);
+      continue;
+    }
+    const out: number[] = [];
     for (let k = 0; k < vs.length; k++) {
       const a = vs[k];
       const b = vs[(k + 1) % vs.length];
-      const sa = s.get(a)!;
-      const sb = s.get(b)!;
-      if (sa <= eps) {
+      const ka = sc.side[a];
+      const kb = sc.side[b];
+      if (ka <= 0) {
         out.push(a);
-        if (sa >= -eps) capIds.add(a);
-      } else changed = true;
-      if ((sa < -eps && sb > eps) || (sa > eps && sb < -eps)) {
+        if (ka === 0) addCap(a);
+      }
+      if (ka * kb < 0) {
         const m = crossing(a, b);
         out.push(m);
-        capIds.add(m);
+        addCap(m);
       }
     }
-    const loop = changed ? dedupeLoop(out) : out;
-    if (loop.length >= 3) next.push(changed ? { ...f, verts: loop } : f);
+    const loop = dedupeLoop(out);
+    if (loop.length >= 3) next.push({ ...f, verts: loop });
   }
-  if (capIds.size >= 3) {
-    next.push({ family: plane.family, normal: plane.normal, offset: plane.offset, verts: orderAround(pool, [...capIds], plane.normal) });
+  if (capIds.length >= 3) {
+    const loop = rimLoop(next, sc, stamp) ?? orderAround(pool, capIds, plane.normal);
+    if (loop.length >= 3) next.push({ family: plane.family, normal: plane.normal, offset: plane.offset, verts: loop });
   }
   return next;
 }
 
-/** Twice the area of a face loop, from Newell's normal, and its longest chord from vertex 0. */
-function faceWidth(pool: VertexPool, verts: readonly number[]): number {
-  let ax = 0;
-  let ay = 0;
-  let az = 0;
-  let diameter = 0;
-  const p0 = pool.point(verts[0]);
-  for (let k = 0; k < verts.length; k++) {
-    const p = pool.point(verts[k]);
-    const q = pool.point(verts[(k + 1) % verts.length]);
-    ax += (p[1] - q[1]) * (p[2] + q[2]);
-    ay += (p[2] - q[2]) * (p[0] + q[0]);
-    az += (p[0] - q[0]) * (p[1] + q[1]);
-    diameter = Math.max(diameter, Math.hypot(p[0] - p0[0], p[1] - p0[1], p[2] - p0[2]));
+/**
+ * The cap of a cut as one loop of existing edges: the edges on the cutting plane that only one
+ * remaining face uses are the rim of the part cut away, and the cap runs along them the other way.
+ * Building the cap from the neighbours' own edges keeps the surface closed even where the cutting
+ * plane is nearly parallel to a face. Returns null when the rim is not one simple loop (then the
+ * caller orders the points by angle instead). On-plane vertices are those with `sc.cap === stamp`.
+ */
+function rimLoop(faces: readonly WorkFace[], sc: Scratch, stamp: number): number[] | null {
+  const uses = new Map<number, number>();
+  const directed: number[] = [];
+  for (const f of faces) {
+    const vs = f.verts;
+    for (let k = 0; k < vs.length; k++) {
+      const a = vs[k];
+      const b = vs[(k + 1) % vs.length];
+      if (sc.cap[a] !== stamp || sc.cap[b] !== stamp) continue;
+      const key = pairKey(a, b);
+      uses.set(key, (uses.get(key) ?? 0) + 1);
+      directed.push(a, b);
+    }
   }
-  const area = Math.hypot(ax, ay, az) / 2;
-  return diameter > 0 ? area / diameter : 0;
+  const step = new Map<number, number>();
+  for (let k = 0; k < directed.length; k += 2) {
+    const a = directed[k];
+    const b = directed[k + 1];
+    if (uses.get(pairKey(a, b)) !== 1) continue;
+    if (step.has(b)) return null;
+    step.set(b, a);
+  }
+  if (step.size < 3) return step.size === 0 ? [] : null;
+  const start = step.keys().next().value as number;
+  const loop: number[] = [start];
+  for (let v = step.get(start); v !== start; v = step.get(v)) {
+    if (v === undefined || loop.length > step.size) return null;
+    loop.push(v);
+  }
+  return loop.length === step.size ? loop : null;
+}
+
+class UnionFind {
+  private readonly parent = new Map<number, number>();
+  find(i: number): number {
+    let r = i;
+    for (let p = this.parent.get(r); p !== undefined && p !== r; p = this.parent.get(r)) r = p;
+    this.parent.set(i, r);
+    return r;
+  }
+  union(a: number, b: number): void {
+    const ra = this.find(a);
+    const rb = this.find(b);
+    if (ra !== rb) this.parent.set(Math.max(ra, rb), Math.min(ra, rb));
+  }
 }
 
 /**
- * Removes what the tolerance says is not there: vertices on fewer than three faces (points on an
- * edge left by clipping), faces with fewer than three vertices, and faces narrower than tol.
+ * Applies the length tolerance: the ends of every edge shorter than `tol` become one vertex (at
+ * their mean), so edges and faces smaller than the tolerance vanish. Then drops what no longer
+ * bounds anything: faces left with fewer than three vertices, and vertices on fewer than three
+ * faces (points on a straight edge).
  */
-function tidyFaces(pool: VertexPool, faces: WorkFace[], tol: number): WorkFace[] {
-  let current = faces;
-  for (let pass = 0; pass < 8; pass++) {
+function collapseShortEdges(pool: VertexPool, faces: readonly WorkFace[], tol: number): WorkFace[] {
+  const uf = new UnionFind();
+  const t2 = tol * tol;
+  for (const f of faces) {
+    for (let k = 0; k < f.verts.length; k++) {
+      const a = f.verts[k];
+      const b = f.verts[(k + 1) % f.verts.length];
+      const dx = pool.xyz[3 * a] - pool.xyz[3 * b];
+      const dy = pool.xyz[3 * a + 1] - pool.xyz[3 * b + 1];
+      const dz = pool.xyz[3 * a + 2] - pool.xyz[3 * b + 2];
+      if (dx * dx + dy * dy + dz * dz < t2) uf.union(a, b);
+    }
+  }
+  const members = new Map<number, number[]>();
+  for (const f of faces) {
+    for (const v of f.verts) {
+      const r = uf.find(v);
+      const list = members.get(r);
+      if (!list) members.set(r, [v]);
+      else if (!list.includes(v)) list.push(v);
+    }
+  }
+  for (const [r, list] of members) {
+    if (list.length < 2) continue;
+    const c = [0, 0, 0];
+    for (const v of list) for (let k = 0; k < 3; k++) c[k] += pool.xyz[3 * v + k] / list.length;
+    pool.set(r, [c[0], c[1], c[2]]);
+  }
+  let current = faces.map((f) => ({ ...f, verts: dedupeLoop(f.verts.map((v) => uf.find(v))) })).filter((f) => f.verts.length >= 3);
+  for (let pass = 0; pass < 16; pass++) {
     const count = new Map<number, number>();
-    for (const f of current) for (const v of new Set(f.verts)) count.set(v, (count.get(v) ?? 0) + 1);
+    for (const f of current) for (const v of f.verts) count.set(v, (count.get(v) ?? 0) + 1);
     let removed = false;
     const next: WorkFace[] = [];
     for (const f of current) {
       const verts = dedupeLoop(f.verts.filter((v) => count.get(v)! >= 3));
       if (verts.length !== f.verts.length) removed = true;
-      if (verts.length < 3 || faceWidth(pool, verts) < tol) {
+      if (verts.length < 3) {
         removed = true;
         continue;
       }
@@ -266,6 +374,37 @@ function tidyFaces(pool: VertexPool, faces: WorkFace[], tol: number): WorkFace[]
     if (!removed) break;
   }
   return current;
+}
+
+/**
+ * Moves each vertex onto the least-squares meeting point of its face planes, which undoes the
+ * rounding of repeated clipping (coordinates then agree with the planes to ~1e-12 mm). A vertex
+ * whose planes are too close to parallel to fix a point, or whose fix would move it farther than
+ * `tol`, stays where it is.
+ */
+function polishVertices(pool: VertexPool, faces: readonly WorkFace[], tol: number): void {
+  const planesOf = new Map<number, WorkFace[]>();
+  for (const f of faces) for (const v of f.verts) (planesOf.get(v) ?? planesOf.set(v, []).get(v)!).push(f);
+  for (const [v, fs] of planesOf) {
+    // Normal equations AᵀA x = Aᵀd.
+    let a00 = 0, a01 = 0, a02 = 0, a11 = 0, a12 = 0, a22 = 0, b0 = 0, b1 = 0, b2 = 0;
+    for (const f of fs) {
+      const [nx, ny, nz] = f.normal;
+      a00 += nx * nx; a01 += nx * ny; a02 += nx * nz; a11 += ny * ny; a12 += ny * nz; a22 += nz * nz;
+      b0 += nx * f.offset; b1 += ny * f.offset; b2 += nz * f.offset;
+    }
+    const c00 = a11 * a22 - a12 * a12;
+    const c01 = a02 * a12 - a01 * a22;
+    const c02 = a01 * a12 - a02 * a11;
+    const det = a00 * c00 + a01 * c01 + a02 * c02;
+    if (!(det > 1e-9 * fs.length ** 3)) continue;
+    const c11 = a00 * a22 - a02 * a02;
+    const c12 = a01 * a02 - a00 * a12;
+    const c22 = a00 * a11 - a01 * a01;
+    const p: Vec3 = [(c00 * b0 + c01 * b1 + c02 * b2) / det, (c01 * b0 + c11 * b1 + c12 * b2) / det, (c02 * b0 + c12 * b1 + c22 * b2) / det];
+    const q = pool.point(v);
+    if (Math.hypot(p[0] - q[0], p[1] - q[1], p[2] - q[2]) <= tol) pool.set(v, p);
+  }
 }
 
 function boxFaces(pool: VertexPool, half: number): WorkFace[] {
@@ -291,10 +430,11 @@ function describeFamilies(names: readonly string[]): string {
 /**
  * The envelope of explicit planes: the intersection of {x : x·n̂ ≤ offset} over `planes`.
  *
- * Edge cases: duplicate planes (same normal and offset within tolerance) make one face, owned by
- * the first; a redundant plane that only touches the solid at a vertex or along an edge makes no
- * face; a plane cutting off less than {@link LENGTH_TOL} changes nothing; vertices closer than
- * that are merged. Throws {@link EnvelopeError} when a plane has offset ≤ {@link LENGTH_TOL}, a NaN
+ * Edge cases: planes whose normals agree within {@link ANGLE_TOL} count as one direction, and only
+ * the nearest of them bounds (with offsets within {@link LENGTH_TOL}, the first listed owns the
+ * face); a redundant plane that only touches the solid at a vertex or along an edge makes no
+ * face; a cut whose new edges are all shorter than {@link LENGTH_TOL} leaves nothing behind
+ * (its vertices merge back into one). Throws {@link EnvelopeError} when a plane has offset ≤ {@link LENGTH_TOL}, a NaN
  * or a zero normal, when there are no planes, and when the planes do not close a solid (or the
  * solid reaches farther than {@link ENVELOPE_REACH} × the largest offset from the centre).
  * `familyNames[k]` names family k in messages.
@@ -315,13 +455,26 @@ export function envelopeOfPlanes(planes: readonly EnvelopePlane[], familyNames: 
     if (!p.normal.every(Number.isFinite) || !(Math.hypot(...p.normal) > 0)) {
       throw new EnvelopeError(`${nameOf(p.family)}: the normal must be a non-zero vector of numbers`);
     }
-    unit.push({ normal: normalize(p.normal), offset: p.offset, family: p.family });
+    const n = normalize(p.normal);
     reach = Math.max(reach, p.offset);
+    // Normals within the angle tolerance are one direction: only the nearest such plane bounds.
+    let same = -1;
+    for (let k = 0; k < unit.length && same < 0; k++) {
+      const q = unit[k].normal;
+      const dx = q[0] - n[0];
+      const dy = q[1] - n[1];
+      const dz = q[2] - n[2];
+      if (dx * dx + dy * dy + dz * dz < SAME_DIRECTION) same = k;
+    }
+    if (same < 0) unit.push({ normal: n, offset: p.offset, family: p.family });
+    else if (p.offset < unit[same].offset - LENGTH_TOL) unit[same] = { normal: n, offset: p.offset, family: p.family };
   }
-  const pool = new VertexPool(LENGTH_TOL);
+  const pool = new VertexPool();
   let faces = boxFaces(pool, reach * ENVELOPE_REACH);
-  for (const p of unit) faces = clip(pool, faces, p, LENGTH_TOL);
-  faces = tidyFaces(pool, faces, LENGTH_TOL);
+  const scratch = new Scratch();
+  for (const p of unit) faces = clip(pool, faces, p, scratch);
+  faces = collapseShortEdges(pool, faces, LENGTH_TOL);
+  polishVertices(pool, faces, LENGTH_TOL);
   if (faces.length < 4 || faces.some((f) => f.family === BOX_FAMILY)) {
     const used = [...new Set(unit.map((p) => p.family))].sort((a, b) => a - b).map(nameOf);
     throw new EnvelopeError(
