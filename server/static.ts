@@ -26,7 +26,8 @@ export function clientRouter(clientDir: string | null): Router {
     if (req.path === '/api' || req.path.startsWith('/api/')) return next();
     if (index && existsSync(index)) {
       res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(index);
+      // dotfiles: the install folder itself may sit under a dot-directory; the file is fixed.
+      res.sendFile(index, { dotfiles: 'allow' });
       return;
     }
     res

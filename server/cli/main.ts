@@ -10,7 +10,8 @@ export interface CommandModule {
   run(args: string[], io: CliIo): Promise<number>;
 }
 
-interface CommandEntry {
+/** One row of the command table: a usage line and how to load the module. */
+export interface CommandEntry {
   readonly summary: string;
   readonly load: () => Promise<unknown>;
 }
@@ -19,7 +20,7 @@ interface CommandEntry {
 // modules exist yet; a missing one is reported when it is asked for.
 const load = (specifier: string) => () => import(specifier) as Promise<unknown>;
 
-const COMMANDS: Readonly<Record<string, CommandEntry>> = {
+export const COMMANDS: Readonly<Record<string, CommandEntry>> = {
   planes: {
     summary: 'planes --group G --family FOLD [--family FOLD …] [--json]   which planes can meet at right angles',
     load: load('./planes.js'),
@@ -39,12 +40,12 @@ const COMMANDS: Readonly<Record<string, CommandEntry>> = {
 };
 
 /** The usage text (also printed by `help`). */
-export function usage(): string {
+export function usage(commands: Readonly<Record<string, CommandEntry>> = COMMANDS): string {
   return [
     'usage: npm run --silent cli -- <command> [options]',
     '',
     'commands:',
-    ...Object.values(COMMANDS).map((c) => `  ${c.summary}`),
+    ...Object.values(commands).map((c) => `  ${c.summary}`),
     '',
     'exit status: 0 done, no error; 1 the design has error findings; 2 invalid input or arguments',
   ].join('\n');
@@ -64,20 +65,21 @@ function isCommandModule(m: unknown): m is CommandModule {
 /**
  * Runs one command line. `argv` is everything after the script name. Returns the exit status:
  * 0 done, 1 error findings, 2 invalid input (message on stderr, nothing on stdout). Never throws.
+ * `commands` replaces the command table (tests use it to stand in broken modules).
  */
-export async function main(argv: readonly string[], io: CliIo): Promise<number> {
+export async function main(argv: readonly string[], io: CliIo, commands: Readonly<Record<string, CommandEntry>> = COMMANDS): Promise<number> {
   const [name, ...rest] = argv;
   if (name === 'help' || name === '--help' || name === '-h') {
-    io.out(usage());
+    io.out(usage(commands));
     return 0;
   }
   if (name === undefined || name === '') {
-    io.err(`no command given\n${usage()}`);
+    io.err(`no command given\n${usage(commands)}`);
     return EXIT_INVALID;
   }
-  const entry = Object.prototype.hasOwnProperty.call(COMMANDS, name) ? COMMANDS[name] : undefined;
+  const entry = Object.prototype.hasOwnProperty.call(commands, name) ? commands[name] : undefined;
   if (!entry) {
-    io.err(`unknown command "${name}"\n${usage()}`);
+    io.err(`unknown command "${name}"\n${usage(commands)}`);
     return EXIT_INVALID;
   }
   let mod: unknown;

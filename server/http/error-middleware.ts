@@ -30,6 +30,10 @@ export function errorMiddleware(log: ErrorLogger): ErrorRequestHandler {
       res.status(413).json({ error: { code: 'too_large', message: 'The request body is too large.' } });
       return;
     }
+    if (e?.status === 404) {
+      res.status(404).json({ error: { code: 'not_found', message: 'Not found.' } });
+      return;
+    }
     if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) {
       res.status(e.status).json({ error: { code: 'bad_request', message: 'The request could not be read.' } });
       return;

@@ -8,7 +8,8 @@ let t: TestApp;
 beforeAll(async () => {
   // A stand-in for `dist/client` with the shape Vite writes.
   const probe = await startTestApp({ seed: false });
-  const clientDir = join(probe.dir, 'client');
+  // Under a dot-directory on purpose: an install in e.g. ~/.local must still serve index.html.
+  const clientDir = join(probe.dir, '.build', 'client');
   await probe.close();
   mkdirSync(join(clientDir, 'assets'), { recursive: true });
   writeFileSync(join(clientDir, 'index.html'), '<!doctype html><title>Planewright</title><div id="root"></div>');
