@@ -37,13 +37,16 @@ export function Component() {
       <AuthFrame title={unknown ? 'This invitation link is not known' : 'This invitation can no longer be used'}>
         <div className="space-y-4">
           <p>
-            {unknown
-              ? 'No invitation matches this link. Check that the whole address from the e-mail was opened; links that wrap across lines sometimes lose their end.'
-              : 'The link has expired, was revoked, or has already been used. Invitation links work once.'}
+            {lookup.message ||
+              (unknown
+                ? 'No invitation matches this link.'
+                : 'The link has expired, was revoked, or has already been used. Invitation links work once.')}
           </p>
           <p className="text-sm text-ink-soft">
-            {lookup.message ? `The server said: ${lookup.message} ` : null}
-            Ask the instructor who invited you to send a new invitation.
+            {unknown
+              ? 'Check that the whole address from the e-mail was opened; links that wrap across lines sometimes lose their end. '
+              : null}
+            If you still need to join, ask the instructor who invited you for a new invitation.
           </p>
           <ButtonLink to={me ? '/' : '/sign-in'}>{me ? 'Go to my studios' : 'Go to sign in'}</ButtonLink>
         </div>

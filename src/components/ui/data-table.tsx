@@ -114,7 +114,7 @@ export function DataTable<T>({
                       key={header.id}
                       scope="col"
                       aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : canSort ? 'none' : undefined}
-                      className="border-b border-rule px-3 py-2 font-mono text-xs font-medium uppercase tracking-wide text-ink-soft"
+                      className="whitespace-nowrap border-b border-rule px-3 py-2 font-mono text-xs font-medium uppercase tracking-wide text-ink-soft"
                     >
                       {canSort ? (
                         <button

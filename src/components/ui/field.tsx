@@ -2,12 +2,17 @@ import { useId, type InputHTMLAttributes, type ReactNode, type Ref, type SelectH
 import { cn } from './cn.js';
 
 const control =
-  'block w-full rounded-md border bg-paper-raised px-3 py-2 text-ink placeholder:text-ink-faint ' +
+  'block rounded-md border bg-paper-raised text-ink placeholder:text-ink-faint ' +
   'focus-visible:outline-2 focus-visible:outline-offset-1 focus-visible:outline-accent ' +
-  'disabled:bg-paper-sunk disabled:text-ink-soft';
+  'disabled:bg-paper-sunk disabled:text-ink-soft [&[readonly]]:bg-paper-sunk/70';
 
-function controlClasses(invalid: boolean, className?: string) {
-  return cn(control, invalid ? 'border-signal-error' : 'border-rule-strong', className);
+function controlClasses(invalid: boolean, className?: string, size: 'md' | 'sm' = 'md') {
+  return cn(
+    control,
+    size === 'md' ? 'w-full px-3 py-2' : 'h-8 w-auto py-1 pl-2 pr-1 text-sm leading-5',
+    invalid ? 'border-signal-error' : 'border-rule-strong',
+    className,
+  );
 }
 
 interface FieldFrameProps {
@@ -119,7 +124,7 @@ export function SelectField({
         ref={ref}
         aria-invalid={error ? true : undefined}
         aria-describedby={describedBy(id, error, hint)}
-        className={controlClasses(Boolean(error), cn('pr-8', className))}
+        className={controlClasses(Boolean(error), className)}
         {...rest}
       >
         {children}
@@ -134,5 +139,5 @@ export function InlineSelect({
   ref,
   ...rest
 }: SelectHTMLAttributes<HTMLSelectElement> & { ref?: Ref<HTMLSelectElement> }) {
-  return <select ref={ref} className={controlClasses(false, cn('h-8 w-auto py-0 pl-2 text-sm', className))} {...rest} />;
+  return <select ref={ref} className={controlClasses(false, className, 'sm')} {...rest} />;
 }

@@ -20,7 +20,7 @@ const MARKS: Record<AnyRole, string> = {
   critic: 'M6 1.2 10.8 6 6 10.8 1.2 6z', // diamond
   participant: 'M6 1.5a4.5 4.5 0 1 1 0 9a4.5 4.5 0 1 1 0-9z', // circle
   admin: 'M6 1.5 10.8 10H1.2z', // triangle
-  technician: 'M3.5 1.7h5L11 6 8.5 10.3h-5L1 6z', // hexagon
+  technician: 'M6 1.2v9.6M1.2 6h9.6', // cross
 };
 
 const FILLED: Record<AnyRole, boolean> = {
@@ -36,7 +36,7 @@ const FRAME: Record<AnyRole, string> = {
   critic: 'rounded-sm border-dashed border-ink-soft bg-paper-raised text-ink',
   participant: 'rounded-full border-rule-strong bg-paper-raised text-ink',
   admin: 'rounded-none border-accent-strong bg-accent-wash text-accent-strong',
-  technician: 'rounded-none border-double border-[3px] border-ink-soft bg-paper-raised text-ink',
+  technician: 'rounded-none border-double border-[3px] border-ink-soft bg-paper-raised text-ink py-px',
 };
 
 export function RoleBadge({ role, className }: { role: AnyRole; className?: string }) {
@@ -54,7 +54,7 @@ export function RoleBadge({ role, className }: { role: AnyRole; className?: stri
           d={MARKS[role]}
           fill={FILLED[role] ? 'currentColor' : 'none'}
           stroke="currentColor"
-          strokeWidth={FILLED[role] ? 0 : 1.4}
+          strokeWidth={FILLED[role] ? 0 : role === 'technician' ? 2.2 : 1.4}
           strokeLinejoin="round"
         />
       </svg>

@@ -118,7 +118,7 @@ export function MembersTable({
       column.accessor('joinedAt', {
         header: 'Joined',
         enableGlobalFilter: false,
-        cell: (info) => <span className="font-mono text-xs">{formatDate(info.getValue())}</span>,
+        cell: (info) => <span className="whitespace-nowrap font-mono text-xs">{formatDate(info.getValue())}</span>,
       }),
     ];
     if (!canManage) return base;

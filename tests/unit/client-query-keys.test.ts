@@ -1,0 +1,76 @@
+import { describe, expect, it } from 'vitest';
+import { QueryClient } from '@tanstack/react-query';
+// The client's modules are loaded through a path held in a variable: tsconfig.server.json (which
+// type-checks tests/) does not list src/, and a static import would pull src/ into that project.
+// The local types below restate the parts of the module these tests use.
+type Key = readonly unknown[];
+interface StudioKeys {
+  all: Key;
+  lists: () => Key;
+  list: () => Key;
+  detail: (id: number) => Key;
+  members: (id: number) => Key;
+  invitations: (id: number) => Key;
+}
+interface AdminKeys {
+  users: () => Key;
+  userList: () => Key;
+  outbox: () => Key;
+  mailList: () => Key;
+  mail: (id: number) => Key;
+}
+const STUDIO_KEYS = '../../src/features/studios/api/keys.js';
+const ADMIN_KEYS = '../../src/features/admin/api/keys.js';
+const { studioKeys } = (await import(STUDIO_KEYS)) as { studioKeys: StudioKeys };
+const { adminKeys } = (await import(ADMIN_KEYS)) as { adminKeys: AdminKeys };
+
+function seeded() {
+  const client = new QueryClient();
+  client.setQueryData(studioKeys.list(), []);
+  client.setQueryData(studioKeys.detail(1), { id: 1 });
+  client.setQueryData(studioKeys.members(1), []);
+  client.setQueryData(studioKeys.invitations(1), []);
+  client.setQueryData(studioKeys.members(2), []);
+  return client;
+}
+
+const invalid = (client: QueryClient, key: readonly unknown[]) => client.getQueryState(key)?.isInvalidated ?? false;
+
+describe('studioKeys', () => {
+  it('when one studio is invalidated, its members and invitations go stale and other studios and lists do not', async () => {
+    const client = seeded();
+    await client.invalidateQueries({ queryKey: studioKeys.detail(1) });
+    expect(invalid(client, studioKeys.detail(1))).toBe(true);
+    expect(invalid(client, studioKeys.members(1))).toBe(true);
+    expect(invalid(client, studioKeys.invitations(1))).toBe(true);
+    expect(invalid(client, studioKeys.members(2))).toBe(false);
+    expect(invalid(client, studioKeys.list())).toBe(false);
+  });
+
+  it('when lists are invalidated, details stay fresh', async () => {
+    const client = seeded();
+    await client.invalidateQueries({ queryKey: studioKeys.lists() });
+    expect(invalid(client, studioKeys.list())).toBe(true);
+    expect(invalid(client, studioKeys.detail(1))).toBe(false);
+  });
+
+  it('invalidating the feature prefix reaches everything in it', async () => {
+    const client = seeded();
+    await client.invalidateQueries({ queryKey: studioKeys.all });
+    for (const key of [studioKeys.list(), studioKeys.detail(1), studioKeys.members(2)]) expect(invalid(client, key)).toBe(true);
+  });
+});
+
+describe('adminKeys', () => {
+  it('keeps users and the outbox apart under one prefix', async () => {
+    const client = new QueryClient();
+    client.setQueryData(adminKeys.userList(), []);
+    client.setQueryData(adminKeys.mailList(), []);
+    client.setQueryData(adminKeys.mail(4), { id: 4 });
+    await client.invalidateQueries({ queryKey: adminKeys.users() });
+    expect(invalid(client, adminKeys.userList())).toBe(true);
+    expect(invalid(client, adminKeys.mailList())).toBe(false);
+    await client.invalidateQueries({ queryKey: adminKeys.outbox() });
+    expect(invalid(client, adminKeys.mail(4))).toBe(true);
+  });
+});
