@@ -16,7 +16,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     if (m[2].trim() === '') throw new CliError(`--family ${text}: the offset is missing; give FOLD:OFFSET, e.g. ${fold}:120`);
     const offset = parseNumber(m[2], `--family ${text}: offset`);
     if (offset < 0) throw new CliError(`--family ${text}: the offset must not be negative`);
-    return { fold, offset, id: `--family ${text}`, normal: canonicalNormal(group, fold) };
+    return { fold, offset, id: text.trim(), normal: canonicalNormal(group, fold) };
   });
   let env;
   try {

@@ -58,7 +58,7 @@ export interface EnvelopeFamily {
   readonly normal: Vec3;
   /** Distance from the centre; must be > {@link LENGTH_TOL}. */
   readonly offset: number;
-  /** Name used in messages (e.g. the family id or "5-fold"); defaults to "family <k>". */
+  /** Name used in messages as "family <id>" (e.g. a design's family id); defaults to its 1-based position. */
   readonly id?: string;
 }
 
@@ -421,6 +421,16 @@ function boxFaces(pool: VertexPool, half: number): WorkFace[] {
   return faces;
 }
 
+/** What is wrong with a bounding offset, or null when it can bound a solid. */
+function offsetProblem(offset: number): string | null {
+  if (!Number.isFinite(offset)) return `the offset must be a finite number of mm, got ${offset}`;
+  if (offset < -LENGTH_TOL) return `offset ${offset} is negative: an offset is a distance from the centre; give one greater than 0.001 mm`;
+  if (offset <= LENGTH_TOL) {
+    return `offset ${offset} puts its planes through the centre, so they cannot bound a solid; give it an offset greater than 0.001 mm`;
+  }
+  return null;
+}
+
 function describeFamilies(names: readonly string[]): string {
   if (names.length === 0) return 'no families';
   if (names.length === 1) return `the family ${names[0]}`;
@@ -440,20 +450,15 @@ function describeFamilies(names: readonly string[]): string {
  * `familyNames[k]` names family k in messages.
  */
 export function envelopeOfPlanes(planes: readonly EnvelopePlane[], familyNames: readonly string[] = []): Envelope {
-  const nameOf = (k: number) => familyNames[k] ?? `family ${k + 1}`;
+  const nameOf = (k: number) => familyNames[k] ?? String(k + 1);
   if (planes.length === 0) throw new EnvelopeError('no planes given: an envelope needs families of planes with offsets > 0');
   const unit: EnvelopePlane[] = [];
   let reach = 0;
   for (const p of planes) {
-    if (!Number.isFinite(p.offset)) throw new EnvelopeError(`${nameOf(p.family)}: the offset must be a number, got ${p.offset}`);
-    if (!(p.offset > LENGTH_TOL)) {
-      throw new EnvelopeError(
-        `${nameOf(p.family)}: offset ${p.offset} — a plane at offset 0 (or less) passes through the centre ` +
-          'and cannot bound a solid; give it an offset greater than 0.001 mm',
-      );
-    }
+    const problem = offsetProblem(p.offset);
+    if (problem) throw new EnvelopeError(`family ${nameOf(p.family)}: ${problem}`);
     if (!p.normal.every(Number.isFinite) || !(Math.hypot(...p.normal) > 0)) {
-      throw new EnvelopeError(`${nameOf(p.family)}: the normal must be a non-zero vector of numbers`);
+      throw new EnvelopeError(`family ${nameOf(p.family)}: the normal must be a non-zero vector of numbers`);
     }
     const n = normalize(p.normal);
     reach = Math.max(reach, p.offset);
@@ -476,7 +481,7 @@ export function envelopeOfPlanes(planes: readonly EnvelopePlane[], familyNames: 
   faces = collapseShortEdges(pool, faces, LENGTH_TOL);
   polishVertices(pool, faces, LENGTH_TOL);
   if (faces.length < 4 || faces.some((f) => f.family === BOX_FAMILY)) {
-    const used = [...new Set(unit.map((p) => p.family))].sort((a, b) => a - b).map(nameOf);
+    const used = [...new Set(planes.map((p) => p.family))].sort((a, b) => a - b).map(nameOf);
     throw new EnvelopeError(
       `${describeFamilies(used)} do${used.length === 1 ? 'es' : ''} not enclose a solid: add a family whose planes close it`,
     );
@@ -536,21 +541,15 @@ function assemble(pool: VertexPool, faces: readonly WorkFace[]): Envelope {
  * normal, and when the families do not enclose a solid.
  */
 export function envelopeOfFamilies(group: RotationGroup, families: readonly EnvelopeFamily[]): Envelope {
-  const names = families.map((f, k) => f.id ?? `family ${k + 1}`);
+  const names = families.map((f, k) => f.id ?? String(k + 1));
   if (families.length === 0) throw new EnvelopeError('no families given: an envelope needs at least one family with an offset > 0');
   const planes: EnvelopePlane[] = [];
   families.forEach((f, k) => {
     if (!f.normal.every(Number.isFinite) || !(Math.hypot(...f.normal) > 0)) {
-      throw new EnvelopeError(`${names[k]}: the normal must be a non-zero vector of numbers`);
+      throw new EnvelopeError(`family ${names[k]}: the normal must be a non-zero vector of numbers`);
     }
-    if (!(f.offset > LENGTH_TOL)) {
-      throw new EnvelopeError(
-        Number.isNaN(f.offset)
-          ? `${names[k]}: the offset must be a number`
-          : `${names[k]}: offset ${f.offset} — its planes pass through the centre or behind it and cannot bound a solid; ` +
-              'give it an offset greater than 0.001 mm',
-      );
-    }
+    const problem = offsetProblem(f.offset);
+    if (problem) throw new EnvelopeError(`family ${names[k]}: ${problem}`);
     for (const p of planeOrbit(group, f.normal, f.offset).planes) planes.push({ normal: p.frame.normal, offset: f.offset, family: k });
   });
   return envelopeOfPlanes(planes, names);
