@@ -90,8 +90,6 @@ describe('drawingTemplate', () => {
 });
 
 describe('importDrawing', () => {
-  const design = fixture('o-cube-plates');
-  const template = drawingTemplate(design, 'faces');
   const page = { left: -80, top: 80, width: 160, height: 160 };
   // A motif in the frame (mm, y up): an irregular pentagon with a triangular hole.
   const motif: Ring[] = [
