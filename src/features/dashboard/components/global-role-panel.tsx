@@ -5,7 +5,7 @@ import { RoleBadge } from '../../../components/ui/role-badge.js';
 
 const ADMIN_LINKS = [
   { to: '/admin/users', label: 'Users', text: 'global roles, memberships, last sign-in' },
-  { to: '/admin/studios', label: 'Studios', text: 'every studio; create a new one' },
+  { to: '/admin/studios', label: 'All studios', text: 'every studio; create a new one' },
   { to: '/admin/outbox', label: 'Outbox', text: 'mail the server has sent' },
 ];
 

@@ -13,6 +13,11 @@ export function useUpdateMember(studioId: number) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: ({ userId, role }: { userId: number; role: StudioRole }) => updateMember(studioId, userId, role),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: studioKeys.detail(studioId) }),
+    // The list carries the caller's own role per studio, which may be the one that changed.
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: studioKeys.detail(studioId) }),
+        queryClient.invalidateQueries({ queryKey: studioKeys.lists() }),
+      ]),
   });
 }

@@ -34,8 +34,8 @@ function RemoveControl({
   }
   return (
     <span className="inline-flex items-center gap-2">
-      <Button variant="danger" size="sm" pending={pending} onClick={onRemove} autoFocus>
-        Remove {member.name}
+      <Button variant="danger" size="sm" pending={pending} pendingLabel="Removing…" onClick={onRemove} autoFocus>
+        Yes, remove {member.name}
       </Button>
       <Button variant="quiet" size="sm" onClick={() => setConfirming(false)}>
         Keep
