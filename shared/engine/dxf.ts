@@ -78,6 +78,14 @@ function parseDxfUnsafe(text: string, options: DxfOptions): DxfResult {
   if (typeof text !== 'string') return { ok: false, errors: ['the DXF file must be text'] };
   if (text.length > MAX_DXF_CHARS) return { ok: false, errors: [`the DXF file is larger than ${MAX_DXF_CHARS / 1024 / 1024} MB`] };
   if (!/(^|\n)\s*0\s*\r?\n\s*SECTION/.test(text)) return { ok: false, errors: ['this is not a DXF file (no SECTION found)'] };
+  if (text.startsWith('AutoCAD Binary DXF')) return { ok: false, errors: ['this is a binary DXF file; export it as ASCII (text) DXF'] };
+  // Every other line is a group code (an integer); checking first keeps the parser from logging.
+  const lines = text.split(/\r\n|\r|\n/);
+  for (let i = 0; i + 1 < lines.length; i += 2) {
+    const code = lines[i].trim();
+    if (!/^-?\d{1,4}$/.test(code)) return { ok: false, errors: [`line ${i + 1} should hold a group code (a whole number) but reads "${code.slice(0, 20)}"; the DXF file is damaged`] };
+    if (code === '0' && lines[i + 1].trim() === 'EOF') break;
+  }
   const tol = options.tolerance ?? CHORD_TOL;
   const parsed = new DxfParser().parseSync(text) as { header?: Record<string, unknown>; entities?: unknown[] } | null;
   if (!parsed || !Array.isArray(parsed.entities)) return { ok: false, errors: ['the DXF file has no ENTITIES section'] };
