@@ -151,24 +151,38 @@ export function createAuditor(): Auditor {
         });
       });
       preparedByBlock = nextPrepared;
-      const indexOf = new Map<string, number>();
-      pieces.forEach((p, i) => indexOf.set(p.id, i));
 
       const pairs = overlappingPairs(pieceBoxes(pieces, contactPad(pieces, ctx.half)));
-      const pairsByBlock = new Map<number, number[]>();
+      // Bucket the pairs by (block of a, block of b) with a counting sort, oriented so a's block
+      // comes first; pairs arrive sorted by (i, j), and the counting sort keeps that order.
       const nb = blocks.length;
-      for (let k = 0; k < pairs.length; k += 2) {
-        const i = pairs[k], j = pairs[k + 1];
-        let bi = blockOf[i], bj = blockOf[j];
-        let a = i, b = j;
-        if (bi > bj || (bi === bj && i > j)) { [bi, bj] = [bj, bi]; [a, b] = [b, a]; }
-        const key = bi * nb + bj;
-        let list = pairsByBlock.get(key);
-        if (!list) pairsByBlock.set(key, (list = []));
-        list.push(a, b);
+      const counts = new Int32Array(nb * nb + 1);
+      const np = pairs.length >> 1;
+      const bucket = new Int32Array(np);
+      for (let k = 0; k < np; k++) {
+        const bi = blockOf[pairs[2 * k]], bj = blockOf[pairs[2 * k + 1]];
+        const key = bi <= bj ? bi * nb + bj : bj * nb + bi;
+        bucket[k] = key;
+        counts[key + 1]++;
+      }
+      for (let c = 0; c < nb * nb; c++) counts[c + 1] += counts[c];
+      const fill = counts.slice(0, nb * nb);
+      const sortedPairs = new Int32Array(pairs.length);
+      let swapped = false;
+      for (let k = 0; k < np; k++) {
+        const i = pairs[2 * k], j = pairs[2 * k + 1];
+        const at = 2 * fill[bucket[k]]++;
+        if (blockOf[i] > blockOf[j]) {
+          sortedPairs[at] = j;
+          sortedPairs[at + 1] = i;
+          swapped = true;
+        } else {
+          sortedPairs[at] = i;
+          sortedPairs[at + 1] = j;
+        }
       }
       const nextJoints = new Map<string, Joint[]>();
-      const all: Joint[] = [];
+      const lists: Joint[][] = [];
       const tag = `${design.material.thickness}\u0001${limits.angleToleranceDeg}`;
       for (let bi = 0; bi < nb; bi++) {
         for (let bj = bi; bj < nb; bj++) {
@@ -176,18 +190,21 @@ export function createAuditor(): Auditor {
           let list = joints.get(cacheKey);
           if (!list) {
             list = [];
-            const ps = pairsByBlock.get(bi * nb + bj);
-            if (ps) {
-              // Visit pairs in piece order so the block's list is in the final order already.
-              for (const k of sortedPairOrder(ps)) pairJoints(preparedAt[ps[2 * k]], preparedAt[ps[2 * k + 1]], ctx, list);
+            const lo = counts[bi * nb + bj], hi = counts[bi * nb + bj + 1];
+            // Pieces of one motif are contiguous in the builder's list, so the pairs are in piece
+            // order already; a reordered list (swapped pairs) is sorted here.
+            const order = swapped ? sortedRange(sortedPairs, lo, hi) : null;
+            for (let k = lo; k < hi; k++) {
+              const q = order ? order[k - lo] : k;
+              pairJoints(preparedAt[sortedPairs[2 * q]], preparedAt[sortedPairs[2 * q + 1]], ctx, list);
             }
           }
           nextJoints.set(cacheKey, list);
-          for (const jt of list) all.push(jt);
+          lists.push(list);
         }
       }
       joints = nextJoints;
-      all.sort((x, y) => indexOf.get(x.a)! - indexOf.get(y.a)! || indexOf.get(x.b)! - indexOf.get(y.b)!);
+      const all = orderJoints(lists, pieces);
       return assembleReport({
         design,
         groupName: group.name,
@@ -202,11 +219,38 @@ export function createAuditor(): Auditor {
   };
 }
 
-function sortedPairOrder(ps: readonly number[]): number[] {
-  const n = ps.length / 2;
-  const order = Array.from({ length: n }, (_, k) => k);
+/** Positions lo..hi of flat pairs, ordered by (a, b). */
+function sortedRange(ps: Int32Array, lo: number, hi: number): number[] {
+  const order = Array.from({ length: hi - lo }, (_, k) => lo + k);
   order.sort((x, y) => ps[2 * x] - ps[2 * y] || ps[2 * x + 1] - ps[2 * y + 1]);
   return order;
+}
+
+/**
+ * All joints ordered by the positions of a, then b, in the piece list, keeping each pair's own
+ * order along the joint line: a numeric sort of (pair key, running number).
+ */
+function orderJoints(lists: readonly (readonly Joint[])[], pieces: readonly Piece[]): Joint[] {
+  const indexOf = new Map<string, number>();
+  pieces.forEach((p, i) => indexOf.set(p.id, i));
+  let total = 0;
+  for (const l of lists) total += l.length;
+  const flat: Joint[] = new Array(total);
+  const keys = new Float64Array(total);
+  const n = pieces.length;
+  let k = 0;
+  for (const l of lists) {
+    for (const j of l) {
+      flat[k] = j;
+      // (a·n + b)·2²⁴ + k is exact in a double for n up to ~2·10⁴ pieces and 1.6·10⁷ joints.
+      keys[k] = (indexOf.get(j.a)! * n + indexOf.get(j.b)!) * 16777216 + k;
+      k++;
+    }
+  }
+  keys.sort();
+  const out: Joint[] = new Array(total);
+  for (let q = 0; q < total; q++) out[q] = flat[keys[q] % 16777216];
+  return out;
 }
 
 function motifBlocks(design: ResolvedDesign, pieces: readonly Piece[]): MotifBlock[] {
@@ -300,6 +344,12 @@ export function assembleReport(parts: ReportParts): FullAuditReport {
 const fmt1 = (x: number): string => x.toFixed(1);
 const fmtLen = (x: number): string => (Math.abs(x) < 10 ? x.toFixed(2) : x.toFixed(1));
 
+const JOINT_CODES: readonly (readonly [string, Severity])[] = [
+  ['non-orthogonal-contact', 'error'],
+  ['locked-crossing', 'error'],
+  ['short-joint', 'warning'],
+];
+
 interface JointClass {
   readonly code: string;
   readonly severity: Severity;
@@ -314,24 +364,48 @@ interface JointClass {
  * and length to 0.01): `non-orthogonal-contact`, `locked-crossing`, `short-joint`.
  */
 export function jointFindings(joints: readonly Joint[], motifOf: ReadonlyMap<string, string>, limits: EffectiveLimits, thickness: number): Finding[] {
-  const classes = new Map<string, JointClass>();
-  const add = (code: string, severity: Severity, j: Joint): void => {
-    const ma = motifOf.get(j.a) ?? j.a, mb = motifOf.get(j.b) ?? j.b;
-    const motifs: [string, string] = ma <= mb ? [ma, mb] : [mb, ma];
-    const key = `${code}|${motifs[0]}|${motifs[1]}|${j.kind}|${Math.round(j.angleDeg * 100)}|${Math.round(j.length * 100)}`;
-    let c = classes.get(key);
-    if (!c) classes.set(key, (c = { code, severity, example: j, count: 0, pieces: new Set(), motifs }));
+  // Classes keyed by numbers (motif pair, code, kind; then angle and length in hundredths),
+  // so the pass over every joint builds no strings.
+  const motifIndex = new Map<string, number>();
+  const motifNames: string[] = [];
+  const motifNo = (id: string): number => {
+    const m = motifOf.get(id) ?? id;
+    let k = motifIndex.get(m);
+    if (k === undefined) {
+      k = motifNames.length;
+      motifIndex.set(m, k);
+      motifNames.push(m);
+    }
+    return k;
+  };
+  const kindNo = new Map(JOINT_KINDS.map((k, i) => [k, i]));
+  const classes = new Map<number, Map<number, JointClass>>();
+  const order: JointClass[] = [];
+  const add = (code: number, j: Joint): void => {
+    let ma = motifNo(j.a), mb = motifNo(j.b);
+    if (motifNames[ma] > motifNames[mb]) { const x = ma; ma = mb; mb = x; }
+    const outer = ((ma * 65536 + mb) * 4 + code) * 8 + kindNo.get(j.kind)!;
+    const inner = Math.round(j.angleDeg * 100) * 2 ** 31 + Math.min(2 ** 31 - 1, Math.round(j.length * 100));
+    let byFigure = classes.get(outer);
+    if (!byFigure) classes.set(outer, (byFigure = new Map()));
+    let c = byFigure.get(inner);
+    if (!c) {
+      const [codeName, severity] = JOINT_CODES[code];
+      c = { code: codeName, severity, example: j, count: 0, pieces: new Set(), motifs: [motifNames[ma], motifNames[mb]] };
+      byFigure.set(inner, c);
+      order.push(c);
+    }
     c.count++;
     c.pieces.add(j.a);
     c.pieces.add(j.b);
   };
   for (const j of joints) {
-    if (!j.orthogonal) add('non-orthogonal-contact', 'error', j);
-    if (j.kind === 'locked-crossing') add('locked-crossing', 'error', j);
-    if (j.orthogonal && j.kind !== 'locked-crossing' && j.length < limits.minJointLength) add('short-joint', 'warning', j);
+    if (!j.orthogonal) add(0, j);
+    if (j.kind === 'locked-crossing') add(1, j);
+    if (j.orthogonal && j.kind !== 'locked-crossing' && j.length < limits.minJointLength) add(2, j);
   }
   const out: Finding[] = [];
-  for (const c of classes.values()) {
+  for (const c of order) {
     const j = c.example;
     const where = c.count > 1 ? ` The same happens at ${c.count} joints between ${c.motifs[0]} and ${c.motifs[1]} pieces (all listed).` : '';
     let message: string;

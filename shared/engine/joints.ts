@@ -181,18 +181,18 @@ function chordOf(p: PreparedPiece, S: Float64Array, W: Float64Array, R: number, 
     }
   }
   if (np > 1) {
-    CP.subarray(0, np).sort();
+    sortPrefix(CP, np);
     for (let k = 0; k + 1 < np; k += 2) { LO[m] = CP[k]; HI[m] = CP[k + 1]; m++; }
   }
   if (nm > 1) {
-    CM.subarray(0, nm).sort();
+    sortPrefix(CM, nm);
     for (let k = 0; k + 1 < nm; k += 2) { LO[m] = CM[k]; HI[m] = CM[k + 1]; m++; }
   }
   if (m === 0) return 0;
   // The union depends only on the multisets of starts and ends, so sort them separately and sweep;
   // gaps up to LENGTH_TOL close (points closer than that are one point).
-  LO.subarray(0, m).sort();
-  HI.subarray(0, m).sort();
+  sortPrefix(LO, m);
+  sortPrefix(HI, m);
   let count = 0, i = 0, j = 0, active = 0, lo = 0;
   while (j < m) {
     if (i < m && LO[i] <= HI[j] + LENGTH_TOL) {
@@ -210,6 +210,23 @@ function chordOf(p: PreparedPiece, S: Float64Array, W: Float64Array, R: number, 
     }
   }
   return count;
+}
+
+/** Sorts a[0..n) ascending in place: insertion sort for the short runs the hot loop sees. */
+function sortPrefix(a: Float64Array, n: number): void {
+  if (n > 24) {
+    a.subarray(0, n).sort();
+    return;
+  }
+  for (let i = 1; i < n; i++) {
+    const x = a[i];
+    let j = i - 1;
+    while (j >= 0 && a[j] > x) {
+      a[j + 1] = a[j];
+      j--;
+    }
+    a[j + 1] = x;
+  }
 }
 
 const BOUNDARY = 1;
@@ -232,7 +249,7 @@ function sideAt(p: PreparedPiece, S: Float64Array, W: Float64Array, sm: number, 
     }
   }
   if (n < 2) return BOUNDARY;
-  CP.subarray(0, n).sort();
+  sortPrefix(CP, n);
   let lo = Infinity, hi = -Infinity;
   for (let k = 0; k + 1 < n; k += 2) {
     const a = CP[k], b = CP[k + 1];
@@ -400,18 +417,21 @@ export function pairJoints(A: PreparedPiece, B: PreparedPiece, ctx: JointContext
   return added;
 }
 
+function pointAt(px: number, py: number, pz: number, dx: number, dy: number, dz: number, s: number): Vec3 {
+  return [round6(px + s * dx), round6(py + s * dy), round6(pz + s * dz)];
+}
+
 function makeJoint(
   A: PreparedPiece, B: PreparedPiece,
   a0: number, a1: number, b0: number, b1: number, s0: number, s1: number, R: number,
   px: number, py: number, pz: number, dx: number, dy: number, dz: number,
   angleDeg: number, orthogonal: boolean,
 ): Joint {
-  const at = (s: number): Vec3 => [round6(px + s * dx), round6(py + s * dy), round6(pz + s * dz)];
   const sm = (s0 + s1) / 2;
   const sideA = sideAt(A, SA, WA, sm, R);
   const sideB = sideAt(B, SB, WB, sm, R);
   const idA = A.piece.id, idB = B.piece.id;
-  const from = at(s0), to = at(s1);
+  const from = pointAt(px, py, pz, dx, dy, dz, s0), to = pointAt(px, py, pz, dx, dy, dz, s1);
   let kind: JointKind;
   let tenon: string | undefined;
   let slots: JointSlot[];
@@ -431,7 +451,7 @@ function makeJoint(
       // piece P takes the end lying along n_P × n_other (A takes s1): a rule that turns with the
       // design, so every piece of an orbit is slotted alike.
       const aTakesStart = e0A && e1B && !(e0B && e1A);
-      const mid = at(sm);
+      const mid = pointAt(px, py, pz, dx, dy, dz, sm);
       slots = aTakesStart
         ? [{ piece: idA, from, to: mid }, { piece: idB, from: mid, to }]
         : [{ piece: idA, from: mid, to }, { piece: idB, from, to: mid }];
@@ -443,19 +463,9 @@ function makeJoint(
       slots = pass ? [{ piece: innerIsA ? idB : idA, from, to }] : [];
     }
   }
-  const joint: Joint = {
-    a: idA,
-    b: idB,
-    kind,
-    angleDeg,
-    length: round6(s1 - s0),
-    orthogonal,
-    from,
-    to,
-    ...(tenon !== undefined ? { tenon } : {}),
-    slots,
-  };
-  return joint;
+  const length = round6(s1 - s0);
+  if (tenon !== undefined) return { a: idA, b: idB, kind, angleDeg, length, orthogonal, from, to, tenon, slots };
+  return { a: idA, b: idB, kind, angleDeg, length, orthogonal, from, to, slots };
 }
 
 /**

