@@ -8,6 +8,7 @@ import { parseDesign, parseDesignText } from '../../shared/engine/design.js';
 import { getGroup } from '../../shared/engine/groups.js';
 import { apply } from '../../shared/engine/mat3.js';
 import { planeFrame, toFrame, toWorld } from '../../shared/engine/frames.js';
+import { planeOrbit } from '../../shared/engine/orbits.js';
 import { buildPieces, createPieceBuilder } from '../../shared/engine/pieces.js';
 import { det2, locateInPolygon, polygonArea } from '../../shared/engine/polygons.js';
 import type { ResolvedDesign } from '../../shared/engine/model.js';
@@ -194,6 +195,13 @@ describe('buildPieces', () => {
     const d = fixture('i-two-families');
     const b = buildPieces(d);
     expect(new Set(b.pieces.map((p) => p.id)).size).toBe(b.pieces.length);
+    const group = getGroup(d.symmetry);
+    for (const p of b.pieces) {
+      const f = d.families.find((x) => x.id === p.family)!;
+      const orbit = planeOrbit(group, f.normal, f.offset);
+      expect(p.map).toEqual(orbit.images[p.elements[0]].map);
+      expect(orbit.images[p.elements[0]].plane).toBe(p.plane);
+    }
   });
 });
 
