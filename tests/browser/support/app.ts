@@ -40,10 +40,12 @@ export async function startApp(env: Record<string, string> = {}): Promise<Runnin
   const dir = mkdtempSync(join(tmpdir(), 'planewright-browser-'));
   const port = await freePort();
   const url = `http://127.0.0.1:${port}`;
-  const child: ChildProcess = spawn(join(root, 'node_modules', '.bin', 'tsx'), ['--tsconfig', 'tsconfig.server.json', 'server/index.ts'], {
+  // Exactly what `npm start` runs (scripts/start.mjs): node with tsx's loader.
+  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: root,
     env: {
       ...process.env,
+      TSX_TSCONFIG_PATH: 'tsconfig.server.json',
       NODE_ENV: 'test',
       PORT: String(port),
       HOST: '127.0.0.1',
