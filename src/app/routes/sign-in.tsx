@@ -1,4 +1,4 @@
-import { Link, useNavigate, useSearchParams } from 'react-router-dom';
+import { useNavigate, useSearchParams } from 'react-router-dom';
 import { ButtonLink } from '../../components/ui/button.js';
 import { useMe } from '../../features/auth/api/get-me.js';
 import { SignInForm } from '../../features/auth/components/sign-in-form.js';
@@ -39,7 +39,7 @@ export function Component() {
         <>
           <ProductNote />
           <p>
-            New here? Accounts start from an invitation: an instructor sends you a link by e-mail. <Link to="/forgot-password">Lost your password?</Link>
+            New here? Accounts start from an invitation: an instructor sends you a link by e-mail.
           </p>
         </>
       }
