@@ -407,7 +407,9 @@ export function pairJoints(A: PreparedPiece, B: PreparedPiece, ctx: JointContext
   while (i < na && j < nb) {
     const a0 = IA[2 * i], a1 = IA[2 * i + 1], b0 = IB[2 * j], b1 = IB[2 * j + 1];
     const s0 = a0 > b0 ? a0 : b0, s1 = a1 < b1 ? a1 : b1;
-    if (s1 - s0 > MIN_JOINT_SEGMENT) {
+    // Decide on the reported (rounded) length, so a joint reported as 0.1 mm is never kept and
+    // symmetric copies, which differ only by rounding noise, decide alike.
+    if (round6(s1 - s0) > MIN_JOINT_SEGMENT) {
       out.push(makeJoint(A, B, a0, a1, b0, b1, s0, s1, R, px, py, pz, dx, dy, dz, angleDeg, orthogonal));
       added++;
     }
