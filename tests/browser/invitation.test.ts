@@ -54,7 +54,7 @@ it('an invitation goes out, appears in the outbox, and its link creates a critic
   await page.getByRole('heading', { name: STUDIO }).waitFor();
   await page.getByRole('cell', { name: /Wren Halloway/ }).first().waitFor();
 
-  const me: { email: string; memberships: unknown[] } = await page.evaluate(async () => (await fetch('/api/auth/me')).json());
+  const me = (await page.evaluate(async () => (await fetch('/api/auth/me')).json())) as { email: string; memberships: unknown[] };
   expect(me.email).toBe(INVITEE);
   expect(me.memberships).toEqual([expect.objectContaining({ studioName: STUDIO, role: 'critic' })]);
 
