@@ -28,6 +28,7 @@ import { DEFAULT_ANGLE_TOLERANCE_DEG, type PreparedPiece, contactPad, jointConte
 import { connectivity } from './connectivity.js';
 import { overlappingPairs, pieceBoxes } from './spatial.js';
 import { estimateSheets } from './sheets.js';
+import { checkFabrication } from './fabrication.js';
 import { createPieceBuilder } from './pieces.js';
 import { parseDesign, type InputIssue } from './design.js';
 
@@ -39,6 +40,11 @@ export interface AuditOptions {
   readonly minJointLength?: number;
   /** Run the sheet estimate when a sheet size is known (default true). */
   readonly nesting?: boolean;
+  /**
+   * Run the fabrication checks (slab clashes, splitting mortises, slots near edges, thin
+   * features; default true). Off only for a quick live preview: the report then lacks them.
+   */
+  readonly fabrication?: boolean;
 }
 
 /** The limits an audit runs with, after options and constraints are combined. */
@@ -48,6 +54,7 @@ export interface EffectiveLimits {
   readonly angleToleranceDeg: number;
   readonly minJointLength: number;
   readonly nesting: boolean;
+  readonly fabrication: boolean;
 }
 
 /** Options first, then the design's constraints, then the defaults of FORMAT.md §3–§4. */
@@ -61,6 +68,7 @@ export function effectiveLimits(design: ResolvedDesign, options: AuditOptions = 
     angleToleranceDeg: options.angleToleranceDeg ?? c.angleToleranceDeg ?? DEFAULT_ANGLE_TOLERANCE_DEG,
     minJointLength: options.minJointLength ?? c.minJointLength ?? 2 * design.material.thickness,
     nesting: options.nesting ?? true,
+    fabrication: options.fabrication ?? true,
   };
 }
 
@@ -294,8 +302,9 @@ const SEVERITY_RANK: Record<Severity, number> = { error: 0, warning: 1, info: 2 
 
 /**
  * Puts a report together from pieces and joints: summary, components and groups, the joint
- * findings (grouped by class, see the module notes), the builder's findings and the sheet
- * estimate. `ok` is true exactly when no finding is an error.
+ * findings (grouped by class, see the module notes), the fabrication checks (`checkFabrication`:
+ * slab clashes, mortises that split a piece, slots near an edge, thin features), the builder's
+ * findings and the sheet estimate. `ok` is true exactly when no finding is an error.
  */
 export function assembleReport(parts: ReportParts): FullAuditReport {
   const { design, pieces, joints, limits } = parts;
@@ -310,6 +319,7 @@ export function assembleReport(parts: ReportParts): FullAuditReport {
   const findings: Finding[] = [
     ...jointFindings(joints, motifOf, limits, design.material.thickness),
     ...disconnectedFinding(conn.groups),
+    ...(limits.fabrication ? checkFabrication(pieces, joints, design.material, { templates: parts.templates }) : []),
     ...parts.pieceFindings,
   ];
   let sheets: AuditReport['sheets'];

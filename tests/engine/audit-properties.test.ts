@@ -102,7 +102,14 @@ function figures(r: FullAuditReport) {
     summary: r.summary,
     components: r.components,
     groupSizes: r.groups.map((g) => g.length),
-    findings: r.findings.map((f) => `${f.code}/${f.severity}/${f.pieces.length}`).sort(),
+    // Per code and severity, how many distinct pieces are flagged: independent of how the
+    // checks group repeated findings.
+    findings: Object.fromEntries(
+      [...new Set(r.findings.map((f) => `${f.code}/${f.severity}`))].sort().map((k) => [
+        k,
+        new Set(r.findings.filter((f) => `${f.code}/${f.severity}` === k).flatMap((f) => f.pieces)).size,
+      ]),
+    ),
   };
 }
 
