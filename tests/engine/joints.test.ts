@@ -9,6 +9,7 @@
 import { describe, expect, it } from 'vitest';
 import { contactPad, findJoints, jointsBetween, pairJoints, preparePiece, jointContext } from '../../shared/engine/joints.js';
 import { planeFrame, toFrame } from '../../shared/engine/frames.js';
+import { overlappingPairs, overlappingPairsBrute } from '../../shared/engine/spatial.js';
 import type { Piece } from '../../shared/engine/model.js';
 import type { Vec2, Vec3 } from '../../shared/engine/vec.js';
 
@@ -322,5 +323,27 @@ describe('findJoints', () => {
   it('is empty for fewer than two pieces', () => {
     expect(findJoints([], T3)).toEqual([]);
     expect(findJoints([inZ('a-01', 0, 1, 0, 1)], T3)).toEqual([]);
+  });
+});
+
+describe('overlappingPairs', () => {
+  it('finds exactly the overlapping pairs that testing every pair finds, sorted, skipping empty boxes', () => {
+    let seed = 11;
+    const rnd = (): number => ((seed = (seed * 16807) % 2147483647) / 2147483647);
+    const n = 300;
+    const boxes = new Float64Array(n * 6);
+    for (let i = 0; i < n; i++) {
+      for (let k = 0; k < 3; k++) {
+        const lo = rnd() * 500, size = rnd() * 60;
+        boxes[i * 6 + k] = lo;
+        boxes[i * 6 + 3 + k] = lo + size;
+      }
+    }
+    boxes[6 * 7 + 3] = boxes[6 * 7] - 1; // inverted: pairs with nothing
+    const fast = Array.from(overlappingPairs(boxes));
+    const brute = Array.from(overlappingPairsBrute(boxes));
+    expect(brute.length).toBeGreaterThan(100);
+    expect(fast).toEqual(brute);
+    expect(fast.some((v, k) => k % 2 === 0 && (v === 7 || fast[k + 1] === 7))).toBe(false);
   });
 });
