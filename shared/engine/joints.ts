@@ -514,7 +514,7 @@ export function contactPad(pieces: readonly Piece[], half: number): number {
 
 /**
  * Every joint among `pieces` (FORMAT.md §3). Pairs are pruned with bounding boxes grown by
- * {@link contactPad} in a uniform grid ({@link overlappingPairs}) before the exact chord test; pairs are visited
+ * {@link contactPad} (sweep and prune, {@link overlappingPairs}) before the exact chord test; pairs are visited
  * with i < j in the given order, so a joint's `a` comes before its `b` in `pieces`, and the
  * result is ordered by (a, b) position, then along the joint line. Empty for fewer than two
  * pieces. Throws RangeError when the thickness is not positive.
