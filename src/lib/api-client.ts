@@ -112,11 +112,88 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
   return data as T;
 }
 
+export interface UploadProgress {
+  loaded: number;
+  /** Bytes in the whole request body, or null when the browser cannot tell. */
+  total: number | null;
+  /** 0 to 1, or null when the total is unknown. */
+  fraction: number | null;
+}
+
+export interface UploadOptions {
+  method?: 'POST' | 'PUT' | 'PATCH';
+  onProgress?: (progress: UploadProgress) => void;
+  signal?: AbortSignal;
+}
+
+function parseXhrJson(xhr: XMLHttpRequest): unknown {
+  const type = xhr.getResponseHeader('content-type') ?? '';
+  if (!type.includes('json') || !xhr.responseText) return undefined;
+  try {
+    return JSON.parse(xhr.responseText);
+  } catch {
+    return undefined;
+  }
+}
+
+/**
+ * Sends a multipart form with upload progress. `fetch` cannot report how much of a request body
+ * has gone out, so this one path uses XMLHttpRequest; errors, 401 hand-off and messages are the
+ * same as {@link apiRequest}. An aborted upload rejects with an `AbortError` DOMException.
+ */
+export function apiUpload<T>(path: string, form: FormData, options: UploadOptions = {}): Promise<T> {
+  const { method = 'POST', onProgress, signal } = options;
+  return new Promise<T>((resolve, reject) => {
+    if (signal?.aborted) {
+      reject(new DOMException('The upload was cancelled.', 'AbortError'));
+      return;
+    }
+    const xhr = new XMLHttpRequest();
+    xhr.open(method, path);
+    xhr.withCredentials = true;
+    xhr.setRequestHeader('Accept', 'application/json');
+    const onAbort = () => xhr.abort();
+    signal?.addEventListener('abort', onAbort, { once: true });
+    const done = () => signal?.removeEventListener('abort', onAbort);
+
+    if (onProgress) {
+      xhr.upload.addEventListener('progress', (event) => {
+        const total = event.lengthComputable && event.total > 0 ? event.total : null;
+        onProgress({ loaded: event.loaded, total, fraction: total ? Math.min(1, event.loaded / total) : null });
+      });
+    }
+    xhr.addEventListener('load', () => {
+      done();
+      const data = parseXhrJson(xhr);
+      if (xhr.status >= 200 && xhr.status < 300) {
+        resolve((xhr.status === 204 ? undefined : data) as T);
+        return;
+      }
+      const error = isErrorBody(data)
+        ? new ApiError(xhr.status, data.error.code, data.error.message, data.error.fields ?? {})
+        : new ApiError(xhr.status, `http_${xhr.status}`, fallbackMessage(xhr.status));
+      if (xhr.status === 401) onUnauthorized(error);
+      reject(error);
+    });
+    xhr.addEventListener('error', () => {
+      done();
+      reject(new ApiError(0, 'network_error', 'The upload did not reach the server. Check the connection and try again; nothing was stored.'));
+    });
+    xhr.addEventListener('abort', () => {
+      done();
+      reject(new DOMException('The upload was cancelled.', 'AbortError'));
+    });
+    xhr.send(form);
+  });
+}
+
 export const api = {
   get: <T>(path: string, signal?: AbortSignal) => apiRequest<T>(path, { signal }),
   post: <T>(path: string, body?: unknown) => apiRequest<T>(path, { method: 'POST', body }),
   patch: <T>(path: string, body?: unknown) => apiRequest<T>(path, { method: 'PATCH', body }),
+  put: <T>(path: string, body?: unknown) => apiRequest<T>(path, { method: 'PUT', body }),
   delete: <T = void>(path: string) => apiRequest<T>(path, { method: 'DELETE' }),
+  upload: apiUpload,
 };
 
 /** Builds `/sign-in?next=…` for the given in-app location. */

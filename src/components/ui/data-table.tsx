@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import {
   flexRender,
   getCoreRowModel,
@@ -6,6 +6,7 @@ import {
   getSortedRowModel,
   useReactTable,
   type ColumnDef,
+  type ColumnFiltersState,
   type FilterFn,
   type SortingState,
 } from '@tanstack/react-table';
@@ -34,6 +35,12 @@ export interface DataTableProps<T> {
   initialSorting?: SortingState;
   getRowId?: (row: T) => string;
   emptyMessage?: string;
+  /**
+   * Filters held by the caller (its own controls, e.g. severity checkboxes), applied with each
+   * column's `filterFn`; shown above the table through `toolbar`.
+   */
+  columnFilters?: ColumnFiltersState;
+  toolbar?: ReactNode;
 }
 
 function SortMark({ direction }: { direction: false | 'asc' | 'desc' }) {
@@ -55,6 +62,8 @@ export function DataTable<T>({
   initialSorting = [],
   getRowId,
   emptyMessage = 'Nothing to show yet.',
+  columnFilters,
+  toolbar,
 }: DataTableProps<T>) {
   const [sorting, setSorting] = useState<SortingState>(initialSorting);
   const [globalFilter, setGlobalFilter] = useState('');
@@ -63,7 +72,7 @@ export function DataTable<T>({
   const table = useReactTable({
     data,
     columns,
-    state: { sorting, globalFilter },
+    state: { sorting, globalFilter, columnFilters: columnFilters ?? [] },
     onSortingChange: setSorting,
     onGlobalFilterChange: setGlobalFilter,
     globalFilterFn: containsAllWords as FilterFn<T>,
@@ -79,21 +88,24 @@ export function DataTable<T>({
 
   return (
     <div className="space-y-3">
-      {filterLabel ? (
+      {filterLabel || toolbar ? (
         <div className="flex flex-wrap items-end justify-between gap-3">
-          <div className="w-full max-w-xs space-y-1">
-            <label htmlFor={filterId} className="block text-sm font-medium">
-              {filterLabel}
-            </label>
-            <input
-              id={filterId}
-              type="search"
-              value={globalFilter}
-              placeholder={filterPlaceholder}
-              onChange={(e) => setGlobalFilter(e.target.value)}
-              className="block w-full rounded-md border border-rule-strong bg-paper-raised px-3 py-1.5 text-sm focus-visible:outline-2 focus-visible:outline-offset-1 focus-visible:outline-accent"
-            />
-          </div>
+          {toolbar}
+          {filterLabel ? (
+            <div className="w-full max-w-xs space-y-1">
+              <label htmlFor={filterId} className="block text-sm font-medium">
+                {filterLabel}
+              </label>
+              <input
+                id={filterId}
+                type="search"
+                value={globalFilter}
+                placeholder={filterPlaceholder}
+                onChange={(e) => setGlobalFilter(e.target.value)}
+                className="block w-full rounded-md border border-rule-strong bg-paper-raised px-3 py-1.5 text-sm focus-visible:outline-2 focus-visible:outline-offset-1 focus-visible:outline-accent"
+              />
+            </div>
+          ) : null}
           <p className="font-mono text-xs text-ink-soft" aria-live="polite">
             {rows.length === total ? `${total} ${total === 1 ? 'row' : 'rows'}` : `${rows.length} of ${total} rows`}
           </p>
