@@ -1,6 +1,25 @@
 /**
  * Payloads of /api/studios/:studioId/briefs and /api/briefs: a brief's text, constraints, dates,
  * late policy and rubric; its changelog; the instructor's submissions table.
+ *
+ * Routes of the studio workflow (who may call them in brackets):
+ * - `GET /api/materials` → Material[] (signed in); `POST /api/materials`, `PATCH|DELETE
+ *   /api/materials/:materialId` (admin; DELETE answers 409 while a brief uses the material).
+ * - `GET /api/studios/:studioId/briefs` → Brief[] (members; drafts only to instructors);
+ *   `POST /api/studios/:studioId/briefs` → 201 Brief (instructor).
+ * - `GET /api/briefs/:briefId` → Brief; `PATCH /api/briefs/:briefId`, `POST …/publish`,
+ *   `POST …/close` → Brief (instructor); `GET …/changes` → BriefChange[];
+ *   `GET …/templates/:familyId` → SVG attachment (drawing template).
+ * - `GET /api/briefs/:briefId/submissions?state=&hasErrors=&late=` → SubmissionRow[] (instructors
+ *   all; critics those assigned; participants their own, or all once the gallery is open);
+ *   `GET …/export` → CSV (instructor); `POST …/reaudit` → { queued } (instructor).
+ * - `POST /api/briefs/:briefId/revisions` (multipart or JSON, participant) → 201 RevisionDetail.
+ * - `GET /api/submissions/:submissionId` → Submission; `GET …/history` → HistoryEntry[];
+ *   `PUT …/critics` → Submission (instructor).
+ * - `GET /api/revisions/:revisionId` → RevisionDetail; `GET …/audit` → Audit (for polling);
+ *   `POST …/retry` → Audit (owner or instructor, only when failed, else 409);
+ *   `GET …/files/:fileId` → the stored bytes; `GET …/templates/:familyId` → SVG attachment.
+ * - `GET|PUT /api/me/notifications` → NotificationSettings (signed in).
  */
 import { z } from 'zod';
 import { sheetSizeSchema } from './materials.js';
