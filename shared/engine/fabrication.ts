@@ -151,20 +151,34 @@ interface Clash {
   readonly overlap: number;
 }
 
+interface SlabEntry {
+  readonly piece: Piece;
+  /** Signed offset along the group's direction. */
+  readonly s: number;
+  /** Bounding box of the outline projected into the group's reference frame. */
+  readonly box: [number, number, number, number];
+}
+
 function slabClashes(pieces: readonly Piece[], t: number): Finding[] {
-  const groups = new Map<string, { piece: Piece; s: number }[]>();
+  const groups = new Map<string, { ref: Piece; entries: SlabEntry[] }>();
   for (const p of pieces) {
     const c = canonicalSign(p.frame.normal, 1e-9);
     // Directions equal within ~1e-6 share a key; exact symmetric copies never straddle a cell.
     const key = `${Math.round(c[0] * 1e6)},${Math.round(c[1] * 1e6)},${Math.round(c[2] * 1e6)}`;
-    const entry = { piece: p, s: dot(p.frame.origin, c) };
-    const g = groups.get(key);
-    if (g) g.push(entry);
-    else groups.set(key, [entry]);
+    let g = groups.get(key);
+    if (!g) {
+      g = { ref: p, entries: [] };
+      groups.set(key, g);
+    }
+    const ref = g.ref.frame;
+    const box = ringBox(p === g.ref ? p.polygon.outer : p.polygon.outer.map((q) => toFrame(ref, toWorld(p.frame, q))));
+    g.entries.push({ piece: p, s: dot(p.frame.origin, c), box });
   }
   const clashes: Clash[] = [];
   const reach = t - LENGTH_TOL;
-  for (const g of groups.values()) {
+  // Overlap areas by configuration: symmetric copies of a pair are computed once.
+  const cache = new Map<string, number>();
+  for (const { entries: g } of groups.values()) {
     if (g.length < 2) continue;
     g.sort((x, y) => x.s - y.s);
     for (let i = 0; i < g.length; i++) {
@@ -173,7 +187,16 @@ function slabClashes(pieces: readonly Piece[], t: number): Finding[] {
         const b = g[j].piece;
         const d = g[j].s - g[i].s;
         if (d <= LENGTH_TOL && a.motif === b.motif) continue;
-        const overlap = outlineOverlap(a, b);
+        const [ax0, ay0, ax1, ay1] = g[i].box;
+        const [bx0, by0, bx1, by1] = g[j].box;
+        if (bx0 >= ax1 || ax0 >= bx1 || by0 >= ay1 || ay0 >= by1) continue;
+        const key = `${shapeHash(a)}|${shapeHash(b)}|${Math.round(d * 1000)}|${placementKey(a, b)}`;
+        let overlap = cache.get(key);
+        if (overlap === undefined) {
+          const bInA = (r: Ring): Vec2[] => r.map((q) => toFrame(a.frame, toWorld(b.frame, q)));
+          overlap = overlapArea(a.polygon, { outer: bInA(b.polygon.outer), holes: b.polygon.holes.map(bInA) });
+          cache.set(key, overlap);
+        }
         if (overlap > MIN_REGION_AREA) clashes.push({ a, b, distance: d, overlap });
       }
     }
@@ -207,18 +230,95 @@ function slabClashes(pieces: readonly Piece[], t: number): Finding[] {
   return findings;
 }
 
-/** Area (mm²) where b's polygon, projected onto a's plane, overlaps a's polygon. */
-function outlineOverlap(a: Piece, b: Piece): number {
-  const project = (r: Ring): Vec2[] => r.map((p) => toFrame(a.frame, toWorld(b.frame, p)));
-  const bOuter = project(b.polygon.outer);
-  const [ax0, ay0, ax1, ay1] = ringBox(a.polygon.outer);
-  const [bx0, by0, bx1, by1] = ringBox(bOuter);
-  if (bx0 >= ax1 || ax0 >= bx1 || by0 >= ay1 || ay0 >= by1) return 0;
-  const bPoly: Polygon2 = { outer: bOuter, holes: b.polygon.holes.map(project) };
-  const result = Clipper.Intersect(polygonPaths(a.polygon), polygonPaths(bPoly), FillRule.NonZero);
+/** Area (mm²) where two polygons in one frame overlap. */
+function overlapArea(a: Polygon2, b: Polygon2): number {
   let s = 0;
-  for (const p of result) s += areaMm2(p);
+  for (const p of Clipper.Intersect(polygonPaths(a), polygonPaths(b), FillRule.NonZero)) s += areaMm2(p);
   return s;
+}
+
+/** Two 32-bit running hashes over integers: 64 bits, so unrelated shapes do not collide in practice. */
+class Hash {
+  private h1 = 0x811c9dc5;
+  private h2 = 0x01000193;
+  add(v: number): void {
+    this.h1 = Math.imul(this.h1 ^ v, 16777619);
+    this.h2 = Math.imul(this.h2 + v, 2246822519) ^ (this.h2 >>> 13);
+  }
+  toString(): string {
+    return `${this.h1 >>> 0}:${this.h2 >>> 0}`;
+  }
+}
+
+const shapeHashes = new WeakMap<Piece, string>();
+
+/**
+ * Hash of a piece's polygon mapped back into its motif's frame (inverse of `piece.map`, which is
+ * orthogonal) at 0.01 mm, independent of where each ring starts, of its direction and of the
+ * order of the holes: congruent copies of one image hash alike. Cached per piece object.
+ */
+function shapeHash(p: Piece): string {
+  let h = shapeHashes.get(p);
+  if (h !== undefined) return h;
+  const m = p.map;
+  const ringHash = (ring: Ring): string => {
+    const n = ring.length;
+    const xs = new Array<number>(n);
+    const ys = new Array<number>(n);
+    let area = 0;
+    for (let i = 0; i < n; i++) {
+      xs[i] = Math.round((m[0] * ring[i][0] + m[2] * ring[i][1]) * 100);
+      ys[i] = Math.round((m[1] * ring[i][0] + m[3] * ring[i][1]) * 100);
+    }
+    let start = 0;
+    for (let i = 0; i < n; i++) {
+      const j = (i + 1) % n;
+      area += xs[i] * ys[j] - xs[j] * ys[i];
+      if (xs[i] < xs[start] || (xs[i] === xs[start] && ys[i] < ys[start])) start = i;
+    }
+    const step = area >= 0 ? 1 : n - 1;
+    const hash = new Hash();
+    hash.add(n);
+    for (let k = 0, i = start; k < n; k++, i = (i + step) % n) {
+      hash.add(xs[i]);
+      hash.add(ys[i]);
+    }
+    return hash.toString();
+  };
+  h = `${p.template}|${p.motif}|${ringHash(p.polygon.outer)}|${p.polygon.holes.map(ringHash).sort().join(',')}`;
+  shapeHashes.set(p, h);
+  return h;
+}
+
+/**
+ * Where b sits relative to a, in a's motif frame: the map from b's motif-frame coordinates to
+ * a's (linear part and shift), rounded. Equal for every symmetric copy of the pair.
+ */
+function placementKey(a: Piece, b: Piece): string {
+  const fa = a.frame;
+  const fb = b.frame;
+  // L: b's frame → a's frame (parallel planes: an isometry of the plane), τ its shift.
+  const l0 = dot(fb.u, fa.u);
+  const l1 = dot(fb.v, fa.u);
+  const l2 = dot(fb.u, fa.v);
+  const l3 = dot(fb.v, fa.v);
+  const ox = fb.origin[0] - fa.origin[0];
+  const oy = fb.origin[1] - fa.origin[1];
+  const oz = fb.origin[2] - fa.origin[2];
+  const t0 = ox * fa.u[0] + oy * fa.u[1] + oz * fa.u[2];
+  const t1 = ox * fa.v[0] + oy * fa.v[1] + oz * fa.v[2];
+  const [a0, a1, a2, a3] = a.map;
+  const [b0, b1, b2, b3] = b.map;
+  // M = Aᵀ · L · B,  τ' = Aᵀ · τ.
+  const lb0 = l0 * b0 + l1 * b2;
+  const lb1 = l0 * b1 + l1 * b3;
+  const lb2 = l2 * b0 + l3 * b2;
+  const lb3 = l2 * b1 + l3 * b3;
+  const m0 = Math.round((a0 * lb0 + a2 * lb2) * 1e6);
+  const m1 = Math.round((a0 * lb1 + a2 * lb3) * 1e6);
+  const m2 = Math.round((a1 * lb0 + a3 * lb2) * 1e6);
+  const m3 = Math.round((a1 * lb1 + a3 * lb3) * 1e6);
+  return `${m0},${m1},${m2},${m3}|${Math.round((a0 * t0 + a2 * t1) * 100)},${Math.round((a1 * t0 + a3 * t1) * 100)}`;
 }
 
 function ringBox(r: Ring): [number, number, number, number] {
@@ -262,24 +362,40 @@ const EDGE_TOL = 10 * LENGTH_TOL;
  * Slot segments are projected onto the piece's plane; zero-length slots are dropped.
  */
 export function pieceSlots(piece: Piece, joints: readonly Joint[]): PieceSlot[] {
-  const out: PieceSlot[] = [];
+  return withOpenEnds(piece, rawSlots(piece, joints));
+}
+
+type RawSlot = Omit<PieceSlot, 'openFrom' | 'openTo'>;
+
+function rawSlots(piece: Piece, joints: readonly Joint[]): RawSlot[] {
+  const out: RawSlot[] = [];
+  const { origin: o, u, v } = piece.frame;
   for (const j of joints) {
     for (const s of j.slots) {
       if (s.piece !== piece.id) continue;
-      const from = toFrame(piece.frame, s.from);
-      const to = toFrame(piece.frame, s.to);
-      if (Math.hypot(to[0] - from[0], to[1] - from[1]) <= LENGTH_TOL) continue;
-      out.push({
-        partner: j.a === piece.id ? j.b : j.a,
-        kind: j.kind,
-        from,
-        to,
-        openFrom: locateInPolygon(from, piece.polygon, EDGE_TOL) !== 'inside',
-        openTo: locateInPolygon(to, piece.polygon, EDGE_TOL) !== 'inside',
-      });
+      const fx = s.from[0] - o[0];
+      const fy = s.from[1] - o[1];
+      const fz = s.from[2] - o[2];
+      const tx = s.to[0] - o[0];
+      const ty = s.to[1] - o[1];
+      const tz = s.to[2] - o[2];
+      const from: Vec2 = [fx * u[0] + fy * u[1] + fz * u[2], fx * v[0] + fy * v[1] + fz * v[2]];
+      const to: Vec2 = [tx * u[0] + ty * u[1] + tz * u[2], tx * v[0] + ty * v[1] + tz * v[2]];
+      const dx = to[0] - from[0];
+      const dy = to[1] - from[1];
+      if (dx * dx + dy * dy <= LENGTH_TOL * LENGTH_TOL) continue;
+      out.push({ partner: j.a === piece.id ? j.b : j.a, kind: j.kind, from, to });
     }
   }
   return out;
+}
+
+function withOpenEnds(piece: Piece, slots: readonly RawSlot[]): PieceSlot[] {
+  return slots.map((s) => ({
+    ...s,
+    openFrom: locateInPolygon(s.from, piece.polygon, EDGE_TOL) !== 'inside',
+    openTo: locateInPolygon(s.to, piece.polygon, EDGE_TOL) !== 'inside',
+  }));
 }
 
 /**
@@ -351,8 +467,10 @@ function judgeSlots(polygon: Polygon2, slots: readonly PieceSlot[], t: number): 
   const areas = parts(rects as Paths64).sort((x, y) => y - x);
   const alone: number[] = [];
   if (areas.length > 1) {
+    // Only a slot open at both ends can split a piece by itself without touching a hole or
+    // doubling back; the others are reported together.
     rects.forEach((r, k) => {
-      if (parts([r] as Paths64).length > 1) alone.push(k);
+      if (slots[k].openFrom && slots[k].openTo && parts([r] as Paths64).length > 1) alone.push(k);
     });
   }
   const near: { slot: number; distance: number; ring: number }[] = [];
@@ -387,7 +505,7 @@ function rectRingDistance(rect: readonly Vec2[], ring: Ring): number {
 function slotFindings(pieces: readonly Piece[], joints: readonly Joint[], t: number): Finding[] {
   // Configurations keyed by geometry in the motif's frame; pieces in one entry are congruent
   // with their slots, so one verdict serves them all.
-  const configs = new Map<string, { pieces: Piece[]; slots: PieceSlot[][]; verdict: SlotVerdict }>();
+  const configs = new Map<string, { pieces: Piece[]; slots: PieceSlot[]; verdict: SlotVerdict }>();
   const bySlots = new Map<string, Joint[]>();
   for (const j of joints) {
     for (const s of j.slots) {
@@ -400,19 +518,19 @@ function slotFindings(pieces: readonly Piece[], joints: readonly Joint[], t: num
   for (const p of pieces) {
     const own = bySlots.get(p.id);
     if (!own) continue;
-    const slots = pieceSlots(p, own);
-    if (slots.length === 0) continue;
-    const key = configKey(p, slots);
+    const raw = rawSlots(p, own);
+    if (raw.length === 0) continue;
+    const key = configKey(p, raw);
     const entry = configs.get(key);
-    if (entry) {
-      entry.pieces.push(p);
-      entry.slots.push(slots);
-    } else configs.set(key, { pieces: [p], slots: [slots], verdict: judgeSlots(p.polygon, slots, t) });
+    if (entry) entry.pieces.push(p);
+    else {
+      const slots = withOpenEnds(p, raw);
+      configs.set(key, { pieces: [p], slots, verdict: judgeSlots(p.polygon, slots, t) });
+    }
   }
   const findings: Finding[] = [];
-  for (const { pieces: group, slots: groupSlots, verdict } of configs.values()) {
+  for (const { pieces: group, slots, verdict } of configs.values()) {
     const p = group[0];
-    const slots = groupSlots[0];
     const others = group.length > 1 ? ` The same holds for ${group.length - 1} congruent ${group.length === 2 ? 'piece' : 'pieces'}: ${idList(group.slice(1).map((q) => q.id))}.` : '';
     if (verdict.regions > 1) {
       const culprits =
@@ -456,33 +574,26 @@ function slotName(s: PieceSlot): string {
  * frame (through the inverse of `piece.map`, an orthogonal matrix), at 0.01 mm. Equal keys mean
  * congruent situations; a piece whose first contributing element differs only gets its own key.
  */
-function configKey(p: Piece, slots: readonly PieceSlot[]): string {
+function configKey(p: Piece, slots: readonly RawSlot[]): string {
   const m = p.map;
-  const back = (q: Vec2): [number, number] => [Math.round((m[0] * q[0] + m[2] * q[1]) * 100), Math.round((m[1] * q[0] + m[3] * q[1]) * 100)];
-  let h1 = 0x811c9dc5;
-  let h2 = 0x01000193;
-  const mix = (v: number): void => {
-    h1 = Math.imul(h1 ^ v, 16777619);
-    h2 = Math.imul(h2 + v, 2246822519) ^ (h2 >>> 13);
-  };
-  for (const ring of [p.polygon.outer, ...p.polygon.holes]) {
-    mix(ring.length);
-    for (const q of ring) {
-      const [x, y] = back(q);
-      mix(x);
-      mix(y);
-    }
+  const hashes: number[] = [];
+  for (const s of slots) {
+    const ax = Math.round((m[0] * s.from[0] + m[2] * s.from[1]) * 100);
+    const ay = Math.round((m[1] * s.from[0] + m[3] * s.from[1]) * 100);
+    const bx = Math.round((m[0] * s.to[0] + m[2] * s.to[1]) * 100);
+    const by = Math.round((m[1] * s.to[0] + m[3] * s.to[1]) * 100);
+    const forward = ax < bx || (ax === bx && ay <= by);
+    let h = 0x811c9dc5;
+    for (const v of forward ? [ax, ay, bx, by] : [bx, by, ax, ay]) h = Math.imul(h ^ v, 16777619);
+    hashes.push(Math.imul(h ^ KIND_CODE[s.kind], 16777619) >>> 0);
   }
-  const slotKeys = slots
-    .map((s) => {
-      const a = back(s.from);
-      const b = back(s.to);
-      const [u, v] = a[0] < b[0] || (a[0] === b[0] && a[1] <= b[1]) ? [a, b] : [b, a];
-      return `${u[0]},${u[1]},${v[0]},${v[1]},${s.kind}`;
-    })
-    .sort();
-  return `${p.template}|${p.motif}|${h1 >>> 0}:${h2 >>> 0}|${slotKeys.join(';')}`;
+  hashes.sort((x, y) => x - y);
+  const all = new Hash();
+  for (const h of hashes) all.add(h);
+  return `${shapeHash(p)}|${slots.length}|${all.toString()}`;
 }
+
+const KIND_CODE: Record<JointKind, number> = { corner: 1, 'mortise-and-tenon': 2, 'cross-lap': 3, 'through-slot': 4, 'locked-crossing': 5 };
 
 // ---------------------------------------------------------------------------------------------
 // thin-feature
@@ -507,6 +618,9 @@ const ARC_STEP = (12 * Math.PI) / 180;
  * except for its convex corners, which the disc rounds off. Lost regions of at least
  * {@link THIN_AREA_FACTOR} × r² are returned, largest first.
  *
+ * A convex outline without holes is settled first without booleans: when the whole opening
+ * removes less than the threshold (Steiner formula on the exact inset), nothing is reported.
+ *
  * Method: each offset is built as the raw offset ring (edges moved by r, arcs at the joins that
  * open, the original vertex at the joins that close) and cleaned by a clipper2-js union with
  * the positive fill rule — what a polygon offsetter does inside. (clipper2-js 1.2.4's own
@@ -516,12 +630,13 @@ const ARC_STEP = (12 * Math.PI) / 180;
  * 1.5 % of 2r can go either way.
  */
 export function thinRegions(polygon: Polygon2, thickness: number): ThinRegion[] {
+  const minArea = THIN_AREA_FACTOR * thickness * thickness;
+  if (polygon.holes.length === 0 && convexLoss(polygon.outer, thickness) < minArea) return [];
   const r = thickness * SCALE;
   const subject = polygonPaths(polygon);
   const inset = offsetPaths(subject, -r);
   const opened = inset.length > 0 ? offsetPaths(inset, r) : ([] as unknown as Paths64);
   const lost = regionsOf(Clipper.Difference(subject, opened, FillRule.NonZero));
-  const minArea = THIN_AREA_FACTOR * thickness * thickness;
   return lost
     .filter((g) => g.area >= minArea)
     .map((g) => {
@@ -535,6 +650,64 @@ export function thinRegions(polygon: Polygon2, thickness: number): ThinRegion[] 
       };
     })
     .sort((a, b) => b.area - a.area);
+}
+
+/**
+ * For a convex ring, the total area its opening by a disc of radius r removes, exactly, without
+ * booleans: the inset E is the intersection of the edges' half-planes moved in by r, and by the
+ * Steiner formula the opening E ⊕ disc has area(E) + r·perimeter(E) + πr². Infinity for a
+ * non-convex ring or an empty inset (the caller then runs the general method).
+ */
+function convexLoss(ring: Ring, r: number): number {
+  const n = ring.length;
+  if (n < 3) return Infinity;
+  let area = 0;
+  for (let i = 0; i < n; i++) {
+    const a = ring[i];
+    const b = ring[(i + 1) % n];
+    area += a[0] * b[1] - b[0] * a[1];
+  }
+  const ccw = area > 0 ? 1 : -1;
+  for (let i = 0; i < n; i++) {
+    const a = ring[(i + n - 1) % n];
+    const b = ring[i];
+    const c = ring[(i + 1) % n];
+    if (ccw * ((b[0] - a[0]) * (c[1] - b[1]) - (b[1] - a[1]) * (c[0] - b[0])) < -1e-12) return Infinity;
+  }
+  let inset: Vec2[] = ring.slice();
+  for (let i = 0; i < n && inset.length > 0; i++) {
+    const a = ring[i];
+    const b = ring[(i + 1) % n];
+    const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+    if (len === 0) continue;
+    // Inward normal (material on the left for ccw = 1); keep points at least r inside the edge.
+    const nx = (-(b[1] - a[1]) / len) * ccw;
+    const ny = ((b[0] - a[0]) / len) * ccw;
+    const side = (p: Vec2): number => (p[0] - a[0]) * nx + (p[1] - a[1]) * ny - r;
+    const next: Vec2[] = [];
+    for (let k = 0; k < inset.length; k++) {
+      const p = inset[k];
+      const q = inset[(k + 1) % inset.length];
+      const sp = side(p);
+      const sq = side(q);
+      if (sp >= 0) next.push(p);
+      if ((sp >= 0) !== (sq >= 0)) {
+        const t = sp / (sp - sq);
+        next.push([p[0] + (q[0] - p[0]) * t, p[1] + (q[1] - p[1]) * t]);
+      }
+    }
+    inset = next;
+  }
+  if (inset.length < 3) return Infinity;
+  let eArea = 0;
+  let ePerim = 0;
+  for (let k = 0; k < inset.length; k++) {
+    const p = inset[k];
+    const q = inset[(k + 1) % inset.length];
+    eArea += p[0] * q[1] - q[0] * p[1];
+    ePerim += Math.hypot(q[0] - p[0], q[1] - p[1]);
+  }
+  return Math.abs(area) / 2 - (Math.abs(eArea) / 2 + r * ePerim + Math.PI * r * r);
 }
 
 function offsetPaths(paths: Paths64, delta: number): Paths64 {

@@ -303,13 +303,17 @@ interface Remainder {
   readonly perSheet: number;
 }
 
+/** A template's last short row goes to the packer part by part up to this many parts. */
+const LOOSE_PARTS = 8;
+
 /** Above this many rectangles only one packer run is made (each run costs O(n²) or more). */
 const MULTI_RUN_LIMIT = 150;
 
 /**
  * Sheets needed for the templates' remainders. One template left: its grid. Otherwise copies of a
- * template are first tiled into blocks of at most a quarter sheet (a grid of identical parts is
- * what a person would lay out, and it keeps the packer's input small), then packed with
+ * template are first tiled into blocks of at most a quarter sheet, the last block as many full
+ * rows as needed (a grid of identical parts is what a person would lay out, and it keeps the
+ * packer's input to a few blocks per template), then packed with
  * maxrects-packer; with few blocks, the best of runs with and without 90° turns and with both of
  * its sorting rules (its greedy choice of a turn can waste a sheet).
  */
@@ -318,10 +322,18 @@ function packRest(rest: readonly Remainder[], binW: number, binH: number): numbe
   if (rest.length === 1) return Math.ceil(rest[0].copies / rest[0].perSheet);
   const items: { width: number; height: number; x: number; y: number; data: number }[] = [];
   for (const r of rest) {
-    const [bw, bh, per] = block(r.width, r.height, binW / 2, binH / 2);
-    const blocks = per > 1 ? Math.floor(r.copies / per) : 0;
-    for (let k = 0; k < blocks; k++) items.push({ width: bw, height: bh, x: 0, y: 0, data: r.template });
-    for (let k = blocks * per; k < r.copies; k++) items.push({ width: r.width, height: r.height, x: 0, y: 0, data: r.template });
+    const [p, q, nx, ny] = block(r.width, r.height, binW / 2, binH / 2);
+    const per = nx * ny;
+    const blocks = Math.floor(r.copies / per);
+    for (let k = 0; k < blocks; k++) items.push({ width: nx * p, height: ny * q, x: 0, y: 0, data: r.template });
+    // What is left: full rows of the same grid as one block, then the last few parts one by
+    // one (or, when that row is long, as a short row counted as if full).
+    const left = r.copies - blocks * per;
+    const rows = Math.floor(left / nx);
+    if (rows > 0) items.push({ width: nx * p, height: rows * q, x: 0, y: 0, data: r.template });
+    const single = left - rows * nx;
+    if (single > LOOSE_PARTS) items.push({ width: single * p, height: q, x: 0, y: 0, data: r.template });
+    else for (let k = 0; k < single; k++) items.push({ width: p, height: q, x: 0, y: 0, data: r.template });
   }
   const variants: [boolean, PACKING_LOGIC][] = [
     [true, PACKING_LOGIC.MAX_AREA],
@@ -339,16 +351,19 @@ function packRest(rest: readonly Remainder[], binW: number, binH: number): numbe
   return best;
 }
 
-/** The largest grid of a × b parts (either way round) within maxW × maxH: [width, height, parts]. */
-function block(a: number, b: number, maxW: number, maxH: number): [number, number, number] {
-  let out: [number, number, number] = [a, b, 1];
+/**
+ * The largest grid of a × b parts (either way round) within maxW × maxH, at least 1 × 1:
+ * [part width, part height, columns, rows].
+ */
+function block(a: number, b: number, maxW: number, maxH: number): [number, number, number, number] {
+  let out: [number, number, number, number] = [a, b, 1, 1];
   for (const [p, q] of [
     [a, b],
     [b, a],
   ]) {
     const nx = Math.floor((maxW + FIT_EPS) / p);
     const ny = Math.floor((maxH + FIT_EPS) / q);
-    if (nx * ny > out[2]) out = [nx * p, ny * q, nx * ny];
+    if (nx * ny > out[2] * out[3]) out = [p, q, nx, ny];
   }
   return out;
 }
