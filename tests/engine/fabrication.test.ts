@@ -1,4 +1,6 @@
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { convexHull } from '../../shared/engine/hull2.js';
 import { checkFabrication, pieceSlots, slotRectangle, thinRegions } from '../../shared/engine/fabrication.js';
 import { planeFrame, toWorld } from '../../shared/engine/frames.js';
 import type { Joint, JointKind, Piece, Polygon2 } from '../../shared/engine/model.js';
@@ -259,6 +261,27 @@ describe('thinRegions', () => {
     expect(r).toHaveLength(1);
     expect(r[0].center[0]).toBeCloseTo(50, 1);
     expect(r[0].center[1]).toBeCloseTo(20, 1);
+  });
+});
+
+describe('thinRegions on convex outlines', () => {
+  it('agrees with the boolean opening (run on the same outline with a 0.01 mm pin-hole at its centre)', () => {
+    const coord = fc.integer({ min: -40_000, max: 40_000 }).map((v) => v / 1000);
+    // Twelve points at radius 7 keep a disc of radius 6.7 inside: room for 3 mm discs on either
+    // side of the pin-hole at the centre, which forces the boolean method and changes the opening
+    // only around itself, by slivers.
+    const ringOfPoints: Vec2[] = Array.from({ length: 12 }, (_, k) => [7 * Math.cos((k * Math.PI) / 6), 7 * Math.sin((k * Math.PI) / 6)]);
+    const hull = fc.array(fc.tuple(coord, coord), { minLength: 1, maxLength: 8 }).map((p) => convexHull([...ringOfPoints, ...(p as Vec2[])]));
+    const pin = box(-0.005, -0.005, 0.005, 0.005).reverse();
+    fc.assert(
+      fc.property(hull, (h) => {
+        const fast = thinRegions({ outer: h, holes: [] }, 3);
+        const full = thinRegions({ outer: h, holes: [pin] }, 3);
+        expect(fast.length).toBe(full.length);
+        fast.forEach((r, k) => expect(Math.abs(r.area - full[k].area)).toBeLessThan(0.5));
+      }),
+      { numRuns: 40 },
+    );
   });
 });
 
