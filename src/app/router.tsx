@@ -94,6 +94,12 @@ export function createAppRouter(queryClient: QueryClient) {
               children: [
                 { index: true, lazy: lazy(() => import('./routes/dashboard.js'), signedIn) },
                 { path: 'studios/:studioId', lazy: lazy(() => import('./routes/studio.js'), signedIn) },
+                { path: 'studios/:studioId/briefs/new', lazy: lazy(() => import('./routes/brief-new.js'), signedIn) },
+                { path: 'briefs/:briefId', lazy: lazy(() => import('./routes/brief.js'), signedIn) },
+                { path: 'briefs/:briefId/edit', lazy: lazy(() => import('./routes/brief-edit.js'), signedIn) },
+                { path: 'briefs/:briefId/submissions', lazy: lazy(() => import('./routes/brief-submissions.js'), signedIn) },
+                { path: 'revisions/:revisionId', lazy: lazy(() => import('./routes/revision.js'), signedIn) },
+                { path: 'settings/notifications', lazy: lazy(() => import('./routes/notification-settings.js'), signedIn) },
                 {
                   path: 'admin',
                   loader: admin,
@@ -101,6 +107,7 @@ export function createAppRouter(queryClient: QueryClient) {
                     { index: true, loader: () => redirect('/admin/users') },
                     { path: 'users', lazy: lazy(() => import('./routes/admin-users.js'), admin) },
                     { path: 'studios', lazy: lazy(() => import('./routes/admin-studios.js'), admin) },
+                    { path: 'materials', lazy: lazy(() => import('./routes/admin-materials.js'), admin) },
                     {
                       path: 'outbox',
                       lazy: lazy(() => import('./routes/admin-outbox.js'), admin),

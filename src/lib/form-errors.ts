@@ -5,7 +5,8 @@
 import type { FieldErrors } from './api-client.js';
 
 export function fieldNameFromPath(path: string): string {
-  return path.replace(/^(body|query|params)\./, '');
+  // `constraints.sheet[0]` (server) and `constraints.sheet.0` (react-hook-form) name one field.
+  return path.replace(/^(body|query|params)\./, '').replace(/\[(\d+)\]/g, '.$1');
 }
 
 /**
@@ -14,13 +15,14 @@ export function fieldNameFromPath(path: string): string {
  */
 export function applyFieldErrors<Name extends string>(
   fields: FieldErrors,
-  formFields: readonly Name[],
+  formFields: readonly Name[] | ((name: string) => boolean),
   setError: (name: Name, error: { type: string; message: string }) => void,
 ): string[] {
   const unplaced: string[] = [];
+  const known = typeof formFields === 'function' ? formFields : (name: string) => (formFields as readonly string[]).includes(name);
   for (const [path, message] of Object.entries(fields)) {
     const name = fieldNameFromPath(path);
-    if ((formFields as readonly string[]).includes(name)) setError(name as Name, { type: 'server', message });
+    if (known(name)) setError(name as Name, { type: 'server', message });
     else unplaced.push(name ? `${name}: ${message}` : message);
   }
   return unplaced;

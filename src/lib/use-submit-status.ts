@@ -16,8 +16,9 @@ export function useSubmitStatus<T extends FieldValues>(form: UseFormReturn<T, an
   const fail = useCallback(
     (error: unknown) => {
       if (isApiError(error)) {
-        const names = Object.keys(getValues()) as Path<T>[];
-        const unplaced = applyFieldErrors(error.fields, names, (name, e) => setError(name, e));
+        // A nested field (constraints.maxSheets, rubric.0.weight) is placed when the form has it.
+        const has = (name: string) => name !== '' && getValues(name as Path<T>) !== undefined;
+        const unplaced = applyFieldErrors(error.fields, has, (name, e) => setError(name as Path<T>, e));
         const extra = unplaced.length ? ` ${unplaced.join(' ')}` : '';
         setStatus({ kind: 'error', message: `${error.message}${extra}` });
       } else {

@@ -15,8 +15,14 @@ interface NavItem {
 function navFor(user: SessionUser): NavItem[] {
   const items: NavItem[] = [{ to: '/', label: 'My studios', end: true }];
   if (user.globalRole === 'admin') {
-    items.push({ to: '/admin/users', label: 'Users' }, { to: '/admin/studios', label: 'All studios' }, { to: '/admin/outbox', label: 'Outbox' });
+    items.push(
+      { to: '/admin/users', label: 'Users' },
+      { to: '/admin/studios', label: 'All studios' },
+      { to: '/admin/materials', label: 'Materials' },
+      { to: '/admin/outbox', label: 'Outbox' },
+    );
   }
+  items.push({ to: '/settings/notifications', label: 'Notifications' });
   return items;
 }
 

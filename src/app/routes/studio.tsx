@@ -1,7 +1,11 @@
 import type { QueryClient } from '@tanstack/react-query';
 import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { GlobalRole, StudioRole } from '../../../shared/api/roles.js';
+import { ButtonLink } from '../../components/ui/button.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
+import { EmptyState } from '../../components/ui/empty-state.js';
+import { briefsQueryOptions, useBriefs } from '../../features/briefs/api/get-briefs.js';
+import { BriefList } from '../../features/briefs/components/brief-list.js';
 import { ErrorState } from '../../components/ui/error-state.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { RoleBadge } from '../../components/ui/role-badge.js';
@@ -38,6 +42,7 @@ export function makeLoader(queryClient: QueryClient) {
     ]);
     // Lists that may be refused show their own message in their card, so they do not fail the page.
     await Promise.allSettled([
+      queryClient.ensureQueryData(briefsQueryOptions(studioId)),
       queryClient.ensureQueryData(membersQueryOptions(studioId)),
       canManageStudio(studio.myRole, me?.globalRole ?? null) ? queryClient.ensureQueryData(invitationsQueryOptions(studioId)) : null,
     ]);
@@ -62,6 +67,8 @@ export function Component() {
   const { data: me } = useMe();
   const canManage = canManageStudio(studio.myRole, me?.globalRole ?? null);
   const members = useMembers(studioId);
+  const briefs = useBriefs(studioId);
+  const canWriteBriefs = studio.myRole === 'instructor' || me?.globalRole === 'admin';
   const invitations = useInvitations(studioId, canManage);
   useDocumentTitle(studio.name);
 
@@ -88,6 +95,32 @@ export function Component() {
           </div>
         }
       />
+
+      <Card aria-labelledby="briefs-heading">
+        <CardHeader
+          id="briefs-heading"
+          title="Briefs"
+          description={canWriteBriefs ? 'Drafts are visible to instructors only until they are published.' : 'The briefs of this studio, with their deadlines.'}
+          actions={
+            canWriteBriefs ? (
+              <ButtonLink to={`/studios/${studioId}/briefs/new`} variant="primary" size="sm">
+                New brief
+              </ButtonLink>
+            ) : undefined
+          }
+        />
+        {briefs.isPending ? (
+          <TableSkeleton />
+        ) : briefs.isError ? (
+          <ErrorState title="The briefs could not be loaded" error={briefs.error} onRetry={() => void briefs.refetch()} />
+        ) : briefs.data.length === 0 ? (
+          <EmptyState title="No briefs yet">
+            {canWriteBriefs ? 'Write the first brief with “New brief”: its text, constraints, rubric and deadline.' : 'When an instructor publishes a brief, it appears here.'}
+          </EmptyState>
+        ) : (
+          <BriefList briefs={briefs.data} canManage={canWriteBriefs} />
+        )}
+      </Card>
 
       <Card aria-labelledby="members-heading">
         <CardHeader

@@ -1,0 +1,107 @@
+import type { QueryClient } from '@tanstack/react-query';
+import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { AuditStateBadge } from '../../components/ui/audit-state-badge.js';
+import { Card, CardHeader } from '../../components/ui/card.js';
+import { PageHeader } from '../../components/ui/page-header.js';
+import { QueryView } from '../../components/ui/query-view.js';
+import { useMe } from '../../features/auth/api/get-me.js';
+import { auditPollInterval } from '../../features/revisions/api/audit-polling.js';
+import { historyQueryOptions, useHistory } from '../../features/revisions/api/get-submission.js';
+import { revisionQueryOptions, useRevision } from '../../features/revisions/api/get-revision.js';
+import { AuditStatus } from '../../features/revisions/components/audit-status.js';
+import { AuditSummary, SheetEstimate } from '../../features/revisions/components/audit-summary.js';
+import { FindingsTable } from '../../features/revisions/components/findings-table.js';
+import { PhotoThumbnails, RevisionDownloads } from '../../features/revisions/components/revision-files.js';
+import { RevisionHistory } from '../../features/revisions/components/revision-history.js';
+import { studioQueryOptions, useStudio } from '../../features/studios/api/get-studio.js';
+import { formatDateTime } from '../../lib/format.js';
+import { useDocumentTitle } from '../../lib/use-document-title.js';
+import { parseIdParam } from './route-params.js';
+
+export function makeLoader(queryClient: QueryClient) {
+  return async ({ params }: LoaderFunctionArgs) => {
+    const revisionId = parseIdParam(params.revisionId, 'revision', '/revisions/1');
+    const revision = await queryClient.ensureQueryData(revisionQueryOptions(revisionId));
+    await Promise.allSettled([
+      queryClient.ensureQueryData(studioQueryOptions(revision.studioId)),
+      queryClient.ensureQueryData(historyQueryOptions(revision.submissionId)),
+    ]);
+    return null;
+  };
+}
+
+export function Component() {
+  const revisionId = parseIdParam(useParams().revisionId, 'revision', '/revisions/1');
+  const { data: revision } = useRevision(revisionId);
+  const { data: studio } = useStudio(revision.studioId);
+  const { data: me } = useMe();
+  const audit = revision.audit;
+  const history = useHistory(revision.submissionId, auditPollInterval(audit.state) !== false);
+  const report = audit.state === 'done' ? audit.report : null;
+  const canRetry = me?.id === revision.participant.id || studio.myRole === 'instructor' || me?.globalRole === 'admin';
+  useDocumentTitle(`Revision ${revision.number} · ${revision.participant.name}`);
+
+  return (
+    <div className="space-y-8">
+      <PageHeader
+        eyebrow={
+          <span className="flex flex-wrap gap-2">
+            <Link to={`/studios/${studio.id}`}>{studio.name}</Link>
+            <span aria-hidden="true">/</span>
+            <Link to={`/briefs/${revision.briefId}`}>Brief</Link>
+          </span>
+        }
+        title={`Revision ${revision.number}${revision.title ? `: ${revision.title}` : ''}`}
+        description={
+          <span className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
+            <span>{revision.participant.name}</span>
+            <span>Uploaded {formatDateTime(revision.createdAt)}</span>
+            <span>{revision.source === 'file' ? 'From a design document' : 'Built from outlines'}</span>
+            {revision.late ? <span className="rounded-sm border border-ink-soft px-1.5 font-mono text-xs">late</span> : null}
+            <AuditStateBadge state={audit.state} />
+          </span>
+        }
+      />
+
+      <Card aria-labelledby="audit-heading">
+        <CardHeader id="audit-heading" title="Audit" />
+        <AuditStatus revisionId={revision.id} audit={audit} canRetry={canRetry} />
+        {report ? (
+          <div className="mt-6 space-y-6">
+            <AuditSummary report={report} />
+          </div>
+        ) : null}
+      </Card>
+
+      {report ? (
+        <Card aria-labelledby="findings-heading">
+          <CardHeader id="findings-heading" title="Findings" description="Sort by a column; filter by severity, code or words such as a piece id." />
+          <FindingsTable findings={report.findings} />
+        </Card>
+      ) : null}
+
+      <div className="grid gap-8 lg:grid-cols-2">
+        {report?.sheets ? (
+          <Card aria-labelledby="sheets-heading">
+            <CardHeader id="sheets-heading" title="Sheet estimate" />
+            <SheetEstimate sheets={report.sheets} />
+          </Card>
+        ) : null}
+        <Card aria-labelledby="history-heading">
+          <CardHeader id="history-heading" title="History" description="What got better or worse from one revision to the next." />
+          <QueryView query={history} loadingLabel="Loading the history…" errorTitle="The history could not be loaded">
+            {(entries) => <RevisionHistory entries={entries} currentRevisionId={revision.id} />}
+          </QueryView>
+        </Card>
+        <Card aria-labelledby="downloads-heading">
+          <CardHeader id="downloads-heading" title="Downloads" />
+          <RevisionDownloads revision={revision} />
+        </Card>
+        <Card aria-labelledby="photos-heading">
+          <CardHeader id="photos-heading" title="Photos" />
+          <PhotoThumbnails revision={revision} />
+        </Card>
+      </div>
+    </div>
+  );
+}
