@@ -608,6 +608,9 @@ export interface ThinRegion {
   readonly center: Vec2;
 }
 
+/** Overlap (mm) of the opening past the outline, see {@link thinRegions}. */
+const SEAM = 0.01;
+
 /** Angle step (radians) for the arcs of an offset: the arc sags by at most 1.4 % of its radius. */
 const ARC_STEP = (12 * Math.PI) / 180;
 
@@ -635,7 +638,9 @@ export function thinRegions(polygon: Polygon2, thickness: number): ThinRegion[] 
   const r = thickness * SCALE;
   const subject = polygonPaths(polygon);
   const inset = offsetPaths(subject, -r);
-  const opened = inset.length > 0 ? offsetPaths(inset, r) : ([] as unknown as Paths64);
+  // The outset goes 0.01 mm further than the inset came in, so the opening overlaps the outline
+  // where they coincide: lost corners that would touch along a zero-width seam stay apart.
+  const opened = inset.length > 0 ? offsetPaths(inset, r + SEAM * SCALE) : ([] as unknown as Paths64);
   const lost = regionsOf(Clipper.Difference(subject, opened, FillRule.NonZero));
   return lost
     .filter((g) => g.area >= minArea)
