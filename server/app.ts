@@ -6,6 +6,7 @@ import session from 'express-session';
 import helmet from 'helmet';
 import { adminRouter } from './admin/router.js';
 import { authRouter, SESSION_COOKIE } from './auth/router.js';
+import { briefsRouter } from './briefs/router.js';
 import { createPassport } from './auth/passport.js';
 import { authService } from './auth/service.js';
 import { createSessionStore } from './auth/session-store.js';
@@ -14,6 +15,9 @@ import { apiNotFound, errorMiddleware } from './http/error-middleware.js';
 import { jsonOrMultipart, sameOrigin } from './http/guards.js';
 import { RouteRegistry, defineRoutes, type RouteEntry } from './http/routes.js';
 import { invitationsRouter } from './invitations/router.js';
+import { materialsRouter } from './materials/router.js';
+import { notificationsRouter } from './notifications/router.js';
+import { revisionsRouter } from './revisions/router.js';
 import { clientRouter } from './static.js';
 import { studiosRouter } from './studios/router.js';
 
@@ -84,6 +88,10 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/studios', studiosRouter(ctx, registry));
   app.use('/api', invitationsRouter(ctx, registry));
   app.use('/api/admin', adminRouter(ctx, registry));
+  app.use('/api/materials', materialsRouter(ctx, registry));
+  app.use('/api', briefsRouter(ctx, registry));
+  app.use('/api', revisionsRouter(ctx, registry));
+  app.use('/api/me', notificationsRouter(ctx, registry));
   app.use('/api', apiNotFound());
 
   app.use(clientRouter(ctx.clientDir));

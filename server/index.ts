@@ -4,13 +4,17 @@
  */
 import 'reflect-metadata';
 import type { Server } from 'node:http';
-import { resolve } from 'node:path';
+import { dirname, join, resolve } from 'node:path';
 import { createApp } from './app.js';
+import { createAuditPool } from './audits/pool.js';
+import { createAuditRunner } from './audits/runner.js';
 import { ConfigError, loadConfig } from './config.js';
 import { openDatabase } from './db/data-source.js';
 import { systemClock } from './lib/clock.js';
 import { createMailService } from './mail/mail-service.js';
 import { startMailSink, type MailSink } from './mail/sink.js';
+import { reminderJob } from './notifications/reminders.js';
+import { notifier } from './notifications/service.js';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemoIfEmpty } from './seed/demo.js';
 
 async function main(): Promise<void> {
@@ -22,7 +26,13 @@ async function main(): Promise<void> {
   if (!config.smtpUrl) sink = await startMailSink(dataSource, systemClock);
   const mail = createMailService(config.smtpUrl ?? sink!.url, config.mailFrom, { local: sink !== null });
 
-  const app = createApp({ config, dataSource, mail, clock: systemClock, clientDir: resolve('dist/client') });
+  const blobDir = config.databasePath === ':memory:' ? resolve('data/blobs') : join(dirname(config.databasePath), 'blobs');
+  const audits = createAuditRunner({ dataSource, pool: createAuditPool(), clock: systemClock, notifier: notifier({ dataSource, mail, clock: systemClock }), publicUrl: config.publicUrl });
+  const app = createApp({ config, dataSource, mail, clock: systemClock, clientDir: resolve('dist/client'), audits, blobDir });
+  // Audits a crash left queued or running start again; due reminders go out now and every minute.
+  const resumed = audits.resumeStale();
+  const reminders = reminderJob({ dataSource, mail, clock: systemClock, config });
+  reminders.start();
   const server: Server = await new Promise((ok, fail) => {
     const s = app.listen(config.port, config.host, (err?: Error) => (err ? fail(err) : ok(s)));
   });
@@ -32,6 +42,7 @@ async function main(): Promise<void> {
 
   console.log(`Planewright is running at http://${shownHost}:${port}`);
   console.log(`  database: ${config.databasePath}${seeded ? ' (demo data added)' : ''}`);
+  if (resumed > 0) console.log(`  audits: ${resumed} unfinished audit${resumed === 1 ? '' : 's'} queued again`);
   console.log(sink ? `  mail: in-process sink on ${sink.url} (admin → Outbox shows every message)` : `  mail: ${new URL(config.smtpUrl!).host}`);
   if (config.nodeEnv !== 'production') {
     console.log(`  demo accounts (password "${DEMO_PASSWORD}"):`);
@@ -48,6 +59,8 @@ async function main(): Promise<void> {
     server.closeAllConnections?.();
     server.close(async () => {
       try {
+        reminders.stop();
+        await audits.close();
         mail.close();
         await sink?.close();
         await dataSource.destroy();

@@ -35,8 +35,11 @@ export class RouteRegistry {
 export interface RouteSpec<S extends Schemas> {
   action: Action;
   schemas?: S;
-  /** The resource the policy decides on, from the parsed input. */
-  resource?: (input: Parsed<S>) => Resource;
+  /**
+   * The resource the policy decides on, from the parsed input; may load it (a promise), and may
+   * throw NotFoundError when the id names nothing.
+   */
+  resource?: (input: Parsed<S>) => Resource | Promise<Resource>;
   /** Middleware that runs before validation (e.g. rate limits). */
   before?: RequestHandler[];
 }
@@ -61,7 +64,7 @@ export function defineRoutes(router: Router, registry: RouteRegistry, base: stri
       const full = (base + (path === '/' ? '' : path)) || '/';
       registry.add({ method: method.toUpperCase() as Uppercase<Method>, path: full, action: spec.action });
       const check = validate(spec.schemas ?? {});
-      router[method](path, ...(spec.before ?? []), (req, res, next) => {
+      router[method](path, ...(spec.before ?? []), async (req, res, next) => {
         const actor = actorOf(req);
         if (!actor) {
           const d = decide(null, spec.action);
@@ -69,10 +72,9 @@ export function defineRoutes(router: Router, registry: RouteRegistry, base: stri
         }
         check(req, res, () => undefined);
         const input = res.locals.input as Parsed<S>;
-        assertCan(actor, spec.action, spec.resource?.(input));
-        return Promise.resolve(handler({ req, res, input, actor })).then(() => {
-          if (!res.headersSent) next(new Error(`${method.toUpperCase()} ${full} sent no response`));
-        });
+        assertCan(actor, spec.action, spec.resource ? await spec.resource(input) : undefined);
+        await handler({ req, res, input, actor });
+        if (!res.headersSent) next(new Error(`${method.toUpperCase()} ${full} sent no response`));
       });
     };
   return { get: add('get'), post: add('post'), patch: add('patch'), put: add('put'), delete: add('delete') };

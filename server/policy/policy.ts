@@ -18,7 +18,15 @@
  * - An invitation is accepted by a newcomer (no account with the invited address) without
  *   signing in, or by the invited account while signed in as it; anyone else is refused with the
  *   address the invitation is for.
+ * - Briefs: members read published and closed briefs; drafts only instructors (and admins).
+ *   Instructors write their studios' briefs. The material catalogue is read by everyone signed
+ *   in and written by admins.
+ * - Submissions: a participant sees their own, and the others' only once the instructor opens
+ *   the brief's gallery; a critic only those assigned to them; instructors every submission in
+ *   their studios; admins all. Only participants of the studio (and admins, who may do anything)
+ *   submit revisions, and only to a brief that is not a draft. A failed audit is retried by its owner or an instructor.
  */
+import type { BriefState } from '../../shared/api/briefs.js';
 import type { GlobalRole, StudioRole } from '../../shared/api/roles.js';
 
 export interface Actor {
@@ -45,6 +53,18 @@ export const ACTIONS = [
   'admin.users.list',
   'admin.users.manage',
   'admin.outbox.read',
+  'material.list',
+  'material.manage',
+  'brief.list',
+  'brief.view',
+  'brief.manage',
+  'brief.export',
+  'brief.submissions.list',
+  'revision.create',
+  'submission.view',
+  'submission.critics.manage',
+  'revision.retry',
+  'notifications.manage',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -53,6 +73,12 @@ export interface Resource {
   /** For `invitation.accept`: the invited address and whether an account has it. */
   invitedEmail?: string;
   accountExists?: boolean;
+  /** For briefs and what hangs off them: the brief's state and whether its gallery is open. */
+  briefState?: BriefState;
+  galleryOpen?: boolean;
+  /** For a submission: its participant and the critics assigned to it. */
+  ownerId?: number;
+  criticIds?: readonly number[];
 }
 
 export type Decision = { allowed: true } | { allowed: false; status: 401 | 403; message: string };
@@ -94,7 +120,11 @@ export function decide(actor: Actor | null, action: Action, resource: Resource =
   switch (action) {
     case 'auth.me':
     case 'studio.list':
+    case 'material.list':
+    case 'notifications.manage':
       return ALLOW;
+    case 'material.manage':
+      return isAdmin(actor) ? ALLOW : deny('Only an admin can change the material catalogue.');
     case 'studio.create':
     case 'admin.users.list':
     case 'admin.users.manage':
@@ -105,9 +135,40 @@ export function decide(actor: Actor | null, action: Action, resource: Resource =
       return isAdmin(actor) || studioRole(actor, resource.studioId) ? ALLOW : deny('You are not a member of this studio.');
     case 'studio.members.manage':
     case 'studio.invitations.manage':
+    case 'brief.manage':
+    case 'brief.export':
+    case 'submission.critics.manage':
       return isAdmin(actor) || studioRole(actor, resource.studioId) === 'instructor'
         ? ALLOW
         : deny('Only an instructor of this studio can do that.');
+    case 'brief.list':
+      return isAdmin(actor) || studioRole(actor, resource.studioId) ? ALLOW : deny('You are not a member of this studio.');
+    case 'brief.view':
+    case 'brief.submissions.list': {
+      const role = studioRole(actor, resource.studioId);
+      if (isAdmin(actor) || role === 'instructor') return ALLOW;
+      if (!role) return deny('You are not a member of this studio.');
+      return resource.briefState === 'draft' ? deny('This brief is a draft; only instructors see it until it is published.') : ALLOW;
+    }
+    case 'revision.create': {
+      if (isAdmin(actor)) return ALLOW;
+      const role = studioRole(actor, resource.studioId);
+      if (role !== 'participant') return deny('Only participants of this studio submit revisions.');
+      return resource.briefState === 'draft' ? deny('This brief is a draft; only instructors see it until it is published.') : ALLOW;
+    }
+    case 'submission.view': {
+      const role = studioRole(actor, resource.studioId);
+      if (isAdmin(actor) || role === 'instructor') return ALLOW;
+      if (role === 'participant' && (resource.ownerId === actor.id || resource.galleryOpen === true)) return ALLOW;
+      if (role === 'critic' && (resource.criticIds ?? []).includes(actor.id)) return ALLOW;
+      return deny(role ? 'This submission is not yours to see.' : 'You are not a member of this studio.');
+    }
+    case 'revision.retry': {
+      const role = studioRole(actor, resource.studioId);
+      if (isAdmin(actor) || role === 'instructor') return ALLOW;
+      if (role === 'participant' && resource.ownerId === actor.id) return ALLOW;
+      return deny('Only the participant who submitted it or an instructor can retry this audit.');
+    }
   }
 }
 

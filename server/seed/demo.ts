@@ -1,6 +1,6 @@
 /**
  * The demo: an invented maker space (Quillmarsh Fabrication Hall in the town of Tarrow Bridge)
- * with one studio running a flat-pack lamp brief. People and places are made up; addresses use
+ * with one studio running two flat-pack lamp briefs (demo-work.ts). People and places are made up; addresses use
  * example.org. Seeded only into an empty database and never when NODE_ENV=production.
  */
 import type { DataSource, EntityManager } from 'typeorm';
@@ -9,6 +9,7 @@ import { Membership, Studio, User } from '../db/entities/index.js';
 import type { Clock } from '../lib/clock.js';
 import { systemClock } from '../lib/clock.js';
 import { hashPassword } from '../lib/password.js';
+import { seedStudioWork } from './demo-work.js';
 
 export const DEMO_PASSWORD = 'planewright-demo';
 export const DEMO_STUDIO = {
@@ -56,10 +57,14 @@ export async function seedDemo(ds: DataSource, options: SeedOptions = {}): Promi
   const passwordHash = options.passwordHash ?? (await hashPassword(DEMO_PASSWORD));
   await ds.transaction(async (m: EntityManager) => {
     const studio = await m.getRepository(Studio).save(m.getRepository(Studio).create({ ...DEMO_STUDIO, createdAt: now }));
+    const userIds = new Map<string, number>();
     for (const a of DEMO_ACCOUNTS) {
       const users = m.getRepository(User);
       const u = await users.save(users.create({ email: a.email, name: a.name, passwordHash, globalRole: a.globalRole, createdAt: now, lastLoginAt: null }));
+      userIds.set(a.email, u.id);
       if (a.studioRole) await m.getRepository(Membership).insert({ userId: u.id, studioId: studio.id, role: a.studioRole, createdAt: now });
     }
+    // The material catalogue, two published briefs and audited revisions (demo-work.ts).
+    await seedStudioWork(m, { studioId: studio.id, userIds, now });
   });
 }

@@ -5,17 +5,20 @@
 import { createHmac, randomBytes } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import type { Express } from 'express';
 import request from 'supertest';
 import type { DataSource } from 'typeorm';
 import { createApp } from '../../server/app.js';
+import { createAuditPool } from '../../server/audits/pool.js';
+import { createAuditRunner } from '../../server/audits/runner.js';
 import type { AppContext } from '../../server/context.js';
 import { openDatabase } from '../../server/db/data-source.js';
 import { MailMessage, Membership, Session, User } from '../../server/db/entities/index.js';
 import { hashPassword } from '../../server/lib/password.js';
 import { createMailService, type MailService } from '../../server/mail/mail-service.js';
 import { startMailSink, type MailSink } from '../../server/mail/sink.js';
+import { notifier } from '../../server/notifications/service.js';
 import { DEMO_PASSWORD, seedDemo } from '../../server/seed/demo.js';
 
 export { DEMO_PASSWORD };
@@ -41,6 +44,8 @@ export interface TestAppOptions {
   mail?: MailService;
   logError?: (e: unknown) => void;
   clientDir?: string | null;
+  /** Worker threads of the audit pool (started on the first audit; default 1). */
+  auditThreads?: number;
 }
 
 export interface TestApp {
@@ -78,7 +83,11 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
   }
   const sink = await startMailSink(ds, clock);
   const mail = options.mail ?? createMailService(sink.url, 'Planewright <planewright@example.org>', { local: true });
+  const pool = createAuditPool(options.auditThreads ?? 1);
+  const audits = createAuditRunner({ dataSource: ds, pool, clock, notifier: notifier({ dataSource: ds, mail, clock, logError: options.logError }), publicUrl: PUBLIC_URL, logError: options.logError });
   const ctx: AppContext = {
+    audits,
+    blobDir: join(dirname(databasePath), 'blobs'),
     config: {
       sessionSecret: options.sessionSecret ?? TEST_SECRET,
       publicUrl: PUBLIC_URL,
@@ -127,6 +136,7 @@ export async function startTestApp(options: TestAppOptions = {}): Promise<TestAp
       return u;
     },
     async close() {
+      await audits.close();
       mail.close();
       await sink.close();
       if (ds.isInitialized) await ds.destroy();

@@ -7,7 +7,9 @@ import type { Express } from 'express';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listRoutes } from '../../server/app.js';
-import { Invitation, MailMessage } from '../../server/db/entities/index.js';
+import { readFileSync } from 'node:fs';
+import { Brief, Invitation, MailMessage, Material } from '../../server/db/entities/index.js';
+import { rawDb, sqlDate } from '../../server/db/raw.js';
 import { hashToken, newToken } from '../../server/lib/tokens.js';
 import { DEMO_PASSWORD, DEMO_STUDIO_ID, startTestApp, type TestApp } from './helpers.js';
 
@@ -68,6 +70,64 @@ async function freshInvitation(t: TestApp): Promise<{ id: number; token: string 
   return { id: inv.id, token };
 }
 
+const DESIGN = JSON.parse(readFileSync(new URL('../../server/seed/designs/o-facet-lamp.json', import.meta.url), 'utf8')) as object;
+const PLYWOOD_ID = 1;
+/** Seeded: brief 1 (icosahedral, published), submission 1 (participant@, critic@ assigned). */
+const PUBLISHED_BRIEF = 1;
+const SUBMISSION = 1;
+const constraints = {
+  allowedGroups: ['O'],
+  requiredFamilies: [{ axis: 3, offsetMin: 40, offsetMax: 320 }],
+  allowedFamilies: [{ axis: 2, offsetMin: 10, offsetMax: 80 }],
+  materialId: PLYWOOD_ID,
+  sheet: [600, 400],
+  maxSheets: 2,
+  angleToleranceDeg: 0.5,
+};
+
+async function freshBrief(t: TestApp, state: 'draft' | 'published'): Promise<number> {
+  const now = t.clock.now();
+  const b = await t.ds.getRepository(Brief).save({
+    studioId: DEMO_STUDIO_ID,
+    title: unique('Permission brief'),
+    body: '',
+    constraints: JSON.stringify({ ...constraints, requiredFamilies: constraints.requiredFamilies, allowedFamilies: constraints.allowedFamilies }),
+    materialId: PLYWOOD_ID,
+    deadline: new Date(now.getTime() + 30 * 86_400_000),
+    latePolicy: 'accept' as const,
+    critiqueOpensAt: null,
+    critiqueClosesAt: null,
+    rubric: '[]',
+    state,
+    galleryOpen: false,
+    createdById: null,
+    createdAt: now,
+    updatedAt: now,
+    publishedAt: state === 'published' ? now : null,
+    closedAt: null,
+  });
+  return b.id;
+}
+
+async function freshMaterial(t: TestApp): Promise<number> {
+  const now = t.clock.now();
+  return (await t.ds.getRepository(Material).save({ name: unique('Test board'), thickness: 3, kerf: 0.2, cuttingSpeed: null, density: null, sheetSizes: '[]', prohibited: false, prohibitedReason: null, notes: '', createdAt: now, updatedAt: now })).id;
+}
+
+/** A revision of participant@ in the seeded submission whose audit failed (for retry). */
+function failedRevision(t: TestApp): number {
+  const db = rawDb(t.ds);
+  const now = sqlDate(t.clock.now());
+  const rev = db
+    .prepare(`INSERT INTO revisions (submission_id, number, title, design, source, late, created_at) SELECT ?, MAX(number) + 1, 'x', ?, 'file', 0, ? FROM revisions WHERE submission_id = ?`)
+    .run(SUBMISSION, JSON.stringify(DESIGN), now, SUBMISSION);
+  db.prepare(`INSERT INTO audits (revision_id, state, error, attempts, queued_at) VALUES (?, 'failed', 'stand-in failure', 1, ?)`).run(rev.lastInsertRowid, now);
+  return Number(rev.lastInsertRowid);
+}
+
+/** Set in beforeAll: a revision uploaded by participant@ to the seeded brief, and its design file. */
+let uploaded: { revisionId: number; fileId: number };
+
 const TABLE: Record<string, Entry> = {
   'GET /api/health': { call: () => ({ path: '/api/health' }), expect: all(200) },
   'POST /api/auth/login': {
@@ -122,6 +182,47 @@ const TABLE: Record<string, Entry> = {
     },
     expect: admins(200),
   },
+  'GET /api/materials': { call: () => ({ path: '/api/materials' }), expect: signedIn(200) },
+  'POST /api/materials': { call: () => ({ path: '/api/materials', body: { name: unique('Poplar plywood'), thickness: 4, kerf: 0.2 } }), expect: admins(201) },
+  'PATCH /api/materials/:materialId': { call: async (t) => ({ path: `/api/materials/${await freshMaterial(t)}`, body: { kerf: 0.18 } }), expect: admins(200) },
+  'DELETE /api/materials/:materialId': { call: async (t) => ({ path: `/api/materials/${await freshMaterial(t)}` }), expect: admins(204) },
+  'GET /api/studios/:studioId/briefs': { call: () => ({ path: `/api/studios/${DEMO_STUDIO_ID}/briefs` }), expect: members(200) },
+  'POST /api/studios/:studioId/briefs': {
+    call: () => ({ path: `/api/studios/${DEMO_STUDIO_ID}/briefs`, body: { title: unique('New brief'), constraints, deadline: '2026-06-01T17:00:00Z' } }),
+    expect: instructors(201),
+  },
+  'GET /api/briefs/:briefId': { call: () => ({ path: `/api/briefs/${PUBLISHED_BRIEF}` }), expect: members(200) },
+  'PATCH /api/briefs/:briefId': { call: async (t) => ({ path: `/api/briefs/${await freshBrief(t, 'draft')}`, body: { title: 'Renamed' } }), expect: instructors(200) },
+  'POST /api/briefs/:briefId/publish': { call: async (t) => ({ path: `/api/briefs/${await freshBrief(t, 'draft')}/publish` }), expect: instructors(200) },
+  'POST /api/briefs/:briefId/close': { call: async (t) => ({ path: `/api/briefs/${await freshBrief(t, 'published')}/close` }), expect: instructors(200) },
+  'GET /api/briefs/:briefId/changes': { call: () => ({ path: `/api/briefs/${PUBLISHED_BRIEF}/changes` }), expect: members(200) },
+  'GET /api/briefs/:briefId/templates/:familyId': { call: () => ({ path: `/api/briefs/${PUBLISHED_BRIEF}/templates/fold-3` }), expect: members(200) },
+  'GET /api/briefs/:briefId/submissions': { call: () => ({ path: `/api/briefs/${PUBLISHED_BRIEF}/submissions` }), expect: members(200) },
+  'GET /api/briefs/:briefId/export': { call: () => ({ path: `/api/briefs/${PUBLISHED_BRIEF}/export` }), expect: instructors(200) },
+  'POST /api/briefs/:briefId/reaudit': { call: async (t) => ({ path: `/api/briefs/${await freshBrief(t, 'published')}/reaudit` }), expect: instructors(200) },
+  'POST /api/briefs/:briefId/revisions': {
+    call: async (t) => ({ path: `/api/briefs/${await freshBrief(t, 'published')}/revisions`, body: { design: DESIGN } }),
+    expect: only(['admin', 'participant'], 201),
+  },
+  'GET /api/submissions/:submissionId': { call: () => ({ path: `/api/submissions/${SUBMISSION}` }), expect: members(200) },
+  'GET /api/submissions/:submissionId/history': { call: () => ({ path: `/api/submissions/${SUBMISSION}/history` }), expect: members(200) },
+  'PUT /api/submissions/:submissionId/critics': {
+    call: async (t) => {
+      const critic = (await t.ds.query(`SELECT id FROM users WHERE email = 'critic@example.org'`)) as { id: number }[];
+      return { path: `/api/submissions/${SUBMISSION}/critics`, body: { userIds: [critic[0].id] } };
+    },
+    expect: instructors(200),
+  },
+  'GET /api/revisions/:revisionId': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}` }), expect: members(200) },
+  'GET /api/revisions/:revisionId/audit': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}/audit` }), expect: members(200) },
+  'POST /api/revisions/:revisionId/retry': {
+    call: (t) => ({ path: `/api/revisions/${failedRevision(t)}/retry` }),
+    expect: only(['admin', 'instructor', 'participant'], 200),
+  },
+  'GET /api/revisions/:revisionId/files/:fileId': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}/files/${uploaded.fileId}` }), expect: members(200) },
+  'GET /api/revisions/:revisionId/templates/:familyId': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}/templates/facets` }), expect: members(200) },
+  'GET /api/me/notifications': { call: () => ({ path: '/api/me/notifications' }), expect: signedIn(200) },
+  'PUT /api/me/notifications': { call: () => ({ path: '/api/me/notifications', body: { 'deadline-reminder': true } }), expect: signedIn(200) },
 };
 
 /** Route layers Express actually holds (catches a route added without `defineRoutes`). */
@@ -144,6 +245,9 @@ beforeAll(async () => {
   t = await startTestApp();
   await t.addUser(EMAIL.outsider, 'Olu Outsider');
   for (const c of CALLERS) if (c !== 'anonymous') cookies.set(c, await t.cookieFor(EMAIL[c]));
+  const res = await request(t.app).post(`/api/briefs/${PUBLISHED_BRIEF}/revisions`).set('Cookie', cookies.get('participant')!).send({ design: DESIGN });
+  expect(res.status, res.text).toBe(201);
+  uploaded = { revisionId: res.body.id, fileId: res.body.files[0].id };
 });
 afterAll(async () => {
   await t.close();
@@ -165,7 +269,7 @@ describe('permission table', () => {
         expect(path.includes(':'), `${key} left a placeholder in ${path}`).toBe(false);
         let cookie = caller === 'anonymous' ? undefined : cookies.get(caller);
         if (entry.freshSession && caller !== 'anonymous') cookie = await t.cookieFor(EMAIL[caller]);
-        let req = request(t.app)[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](path);
+        let req = request(t.app)[method.toLowerCase() as 'get' | 'post' | 'patch' | 'put' | 'delete'](path);
         if (cookie) req = req.set('Cookie', cookie);
         const res = body ? await req.send(body) : await req;
         got[caller] = res.status;
