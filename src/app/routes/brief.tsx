@@ -90,7 +90,7 @@ export function Component() {
       />
 
       <div className="grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
-        <Card aria-labelledby="brief-text-heading">
+        <Card aria-labelledby="brief-text-heading" className="self-start">
           <CardHeader id="brief-text-heading" title="The brief" />
           {brief.body.trim() ? <MarkdownView source={brief.body} /> : <p className="text-sm text-ink-soft">The instructor has not written a text for this brief.</p>}
         </Card>

@@ -80,7 +80,7 @@ export function Component() {
         </Card>
       ) : null}
 
-      <div className="grid gap-8 lg:grid-cols-2">
+      <div className="grid items-start gap-8 lg:grid-cols-2">
         {report?.sheets ? (
           <Card aria-labelledby="sheets-heading">
             <CardHeader id="sheets-heading" title="Sheet estimate" />

@@ -22,7 +22,7 @@ export function BriefList({ briefs, canManage }: { briefs: Brief[]; canManage: b
             </div>
             <p className="text-sm text-ink-soft">
               {b.constraints.allowedGroups.map(describeGroup).join(', ')}
-              {b.material ? ` · ${b.material.name} ${b.material.thickness} mm` : ''}
+              {b.material ? ` · ${b.material.name}` : ''}
             </p>
           </div>
           <div className="flex flex-wrap items-center gap-3 text-sm">

@@ -53,7 +53,7 @@ export function FamilyRulesFields({
         return (
           <div key={field.id} role="group" aria-label={`${noun} ${i + 1}`} className="space-y-3 rounded-md border border-rule bg-paper/50 p-3">
             <div className="flex flex-wrap items-end gap-3">
-              <SelectField label={`${noun} ${i + 1}: group`} containerClassName="w-44" error={e?.group?.message} {...register(`${base}.group` as never)}>
+              <SelectField label={`${noun} ${i + 1}: group`} containerClassName="w-52" error={e?.group?.message} {...register(`${base}.group` as never)}>
                 <option value="">Any allowed group</option>
                 {groups.map((g) => (
                   <option key={g} value={g}>

@@ -13,6 +13,8 @@ const FIGURE_WORDS: Record<string, string> = {
   pieces: 'pieces',
 };
 
+const count = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
+
 function Change({ change }: { change: HistoryEntry['changes'][number] }) {
   return (
     <li className="flex items-center gap-1.5">
@@ -44,8 +46,13 @@ export function RevisionHistory({ entries, currentRevisionId }: { entries: Histo
           </div>
           {e.figures ? (
             <p className="mt-1 font-mono text-xs text-ink-soft">
-              {e.figures.errors} errors · {e.figures.warnings} warnings · {e.figures.pieces} pieces · {e.figures.components} components
-              {e.figures.sheets !== null ? ` · ${e.figures.sheets} sheets` : ''}
+              {[
+                count(e.figures.errors, 'error'),
+                count(e.figures.warnings, 'warning'),
+                count(e.figures.pieces, 'piece'),
+                count(e.figures.components, 'component'),
+                ...(e.figures.sheets !== null ? [count(e.figures.sheets, 'sheet')] : []),
+              ].join(' · ')}
             </p>
           ) : null}
           {e.changes.length > 0 ? (
