@@ -30,14 +30,23 @@ export function Component() {
         description="The sheets the maker space cuts. Briefs choose from this list; prohibited materials stay listed with their reason and cannot be chosen."
       />
       <SafetyCautions />
-      <div className="grid gap-8 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="space-y-8">
         <Card aria-labelledby="materials-heading">
           <CardHeader id="materials-heading" title="Materials" description="Thickness and kerf go into every audit and cut pack that uses the material." />
           <QueryView query={materials} loadingLabel="Loading the catalogue…" errorTitle="The catalogue could not be loaded">
-            {(list) => <MaterialsTable materials={list} onEdit={setEditing} />}
+            {(list) => (
+              <MaterialsTable
+                materials={list}
+                onEdit={(material) => {
+                  setEditing(material);
+                  // The form sits below the table; bring it into view for the edit.
+                  requestAnimationFrame(() => document.getElementById('material-form-heading')?.scrollIntoView({ block: 'start' }));
+                }}
+              />
+            )}
           </QueryView>
         </Card>
-        <Card aria-labelledby="material-form-heading">
+        <Card aria-labelledby="material-form-heading" className="max-w-3xl">
           <CardHeader
             id="material-form-heading"
             title={editing ? `Edit ${editing.name}` : 'Add a material'}

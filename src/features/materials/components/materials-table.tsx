@@ -17,7 +17,7 @@ export function ProhibitedMark({ reason }: { reason: string | null }) {
       </svg>
       <span>
         <span className="font-semibold">Prohibited</span>
-        {reason ? <span className="block text-xs text-ink">{reason}</span> : null}
+        {reason ? <span className="block max-w-80 text-xs text-ink">{reason}</span> : null}
       </span>
     </span>
   );
@@ -26,26 +26,26 @@ export function ProhibitedMark({ reason }: { reason: string | null }) {
 export function MaterialsTable({ materials, onEdit }: { materials: Material[]; onEdit?: (material: Material) => void }) {
   const columns: ColumnDef<Material, any>[] = [
     { accessorKey: 'name', header: 'Name', cell: ({ row }) => <span className="font-medium">{row.original.name}</span> },
-    { accessorKey: 'thickness', header: 'Thickness', enableGlobalFilter: false, cell: ({ getValue }) => <span className="font-mono">{getValue()} mm</span> },
-    { accessorKey: 'kerf', header: 'Kerf', enableGlobalFilter: false, cell: ({ getValue }) => <span className="font-mono">{getValue()} mm</span> },
+    { accessorKey: 'thickness', header: 'Thickness', enableGlobalFilter: false, cell: ({ getValue }) => <span className="whitespace-nowrap font-mono">{getValue()} mm</span> },
+    { accessorKey: 'kerf', header: 'Kerf', enableGlobalFilter: false, cell: ({ getValue }) => <span className="whitespace-nowrap font-mono">{getValue()} mm</span> },
     {
       accessorKey: 'cuttingSpeed',
       header: 'Cutting speed',
       enableGlobalFilter: false,
-      cell: ({ getValue }) => <span className="font-mono">{getValue() === null ? '—' : `${getValue()} mm/s`}</span>,
+      cell: ({ getValue }) => <span className="whitespace-nowrap font-mono">{getValue() === null ? '—' : `${getValue()} mm/s`}</span>,
     },
     {
       accessorKey: 'density',
       header: 'Density',
       enableGlobalFilter: false,
-      cell: ({ getValue }) => <span className="font-mono">{getValue() === null ? '—' : `${getValue()} kg/m³`}</span>,
+      cell: ({ getValue }) => <span className="whitespace-nowrap font-mono">{getValue() === null ? '—' : `${getValue()} kg/m³`}</span>,
     },
     {
       id: 'sheets',
       accessorFn: (m) => formatSheetSizes(m.sheetSizes),
       header: 'Sheet sizes (mm)',
       enableSorting: false,
-      cell: ({ getValue }) => <span className="font-mono text-xs">{getValue()}</span>,
+      cell: ({ getValue }) => <span className="block max-w-56 font-mono text-xs">{getValue()}</span>,
     },
     {
       id: 'status',
