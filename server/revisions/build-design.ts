@@ -90,6 +90,18 @@ const round = (p: Polygon2) => {
   return { outline: r(p.outer), ...(p.holes.length ? { holes: p.holes.map(r) } : {}) };
 };
 
+/**
+ * A plain SVG outline (not one of our drawing templates) has no motif layer: wrap the root's
+ * content in one, so the importer reads every shape with the root's width, height and viewBox.
+ */
+function asMotifLayer(svg: string): string {
+  const open = /<svg\b[^>]*>/i.exec(svg);
+  const close = svg.toLowerCase().lastIndexOf('</svg>');
+  if (!open || open[0].endsWith('/>') || close < open.index) return svg;
+  const start = open.index + open[0].length;
+  return `${svg.slice(0, start)}<g id="motif" data-planewright-layer="motif">${svg.slice(start, close)}</g>${svg.slice(close)}`;
+}
+
 function outlineOf(file: UploadedFile, motifId: string): { polygon: Polygon2; spec: StoredFileSpec } {
   const field = `files.${file.fieldname}`;
   if (file.size > UPLOAD_LIMITS.outline) {
@@ -103,7 +115,7 @@ function outlineOf(file: UploadedFile, motifId: string): { polygon: Polygon2; sp
   }
   const text = textOf(file.buffer);
   if (text === null) throw new UnprocessableError(`${file.originalname} is not UTF-8 text.`, { [field]: 'not UTF-8 text' });
-  const r = kind === 'dxf' ? dxfToPolygon(text) : importDrawing(text);
+  const r = kind === 'dxf' ? dxfToPolygon(text) : importDrawing(kind === 'svg' ? asMotifLayer(text) : text);
   if (!r.ok) {
     throw new UnprocessableError(`${file.originalname} (motif "${motifId}") could not be read: ${r.errors[0]}`, { [field]: r.errors.slice(0, 3).join('; ') });
   }
