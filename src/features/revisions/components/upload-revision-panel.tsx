@@ -199,9 +199,14 @@ export function UploadRevisionPanel({
         placed[field] = [placed[field], message].filter(Boolean).join(' ');
       } else if (family) {
         placed[`families.${family[1]}${family[2] ?? '.id'}`] = message;
-      } else if (key.startsWith('design')) {
-        // Problems inside the design document belong to its file field, naming where in the file.
-        placed['files.design'] = [placed['files.design'], key === 'design' ? message : `${key}: ${message}`].filter(Boolean).join(' ');
+      } else if (key.startsWith('design') || key === 'files.design') {
+        // Problems inside the design document belong to its file field, naming where in the file;
+        // the server may say one problem twice (at the file and at the path inside it).
+        const where = key.replace(/^design\.?/, '').replace(/^files\.design$/, '');
+        const text = where && !message.startsWith(`${where}:`) ? `${where}: ${message}` : message;
+        const before = placed['files.design'];
+        if (!before) placed['files.design'] = text;
+        else if (!before.includes(message)) placed['files.design'] = `${before} ${text}`;
       } else placed[key] = message;
     }
     setErrors(placed);
