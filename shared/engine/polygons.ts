@@ -448,27 +448,58 @@ export function assemblePolygon(rings: readonly Ring[], tol: number = LENGTH_TOL
 export type UnionResult = { ok: true; regions: Polygon2[] } | { ok: false; message: string };
 
 /**
+ * Grids (mm) the union input is snapped to, finest first. `polygon-clipping` 0.15 can fail to
+ * close an output ring when two inputs carry coordinates that should be equal but differ in the
+ * last bits (rotated copies of one motif meeting near a symmetry axis); snapping makes them
+ * equal. Every grid is far below {@link LENGTH_TOL}, so a coarser retry never changes a cut.
+ */
+const UNION_GRIDS = [1e-9, 1e-7, 1e-6, 1e-5] as const;
+
+function snapRing(r: Ring, g: number): [number, number][] {
+  const out: [number, number][] = [];
+  for (const q of r) {
+    const x = Math.round(q[0] / g) * g;
+    const y = Math.round(q[1] / g) * g;
+    const last = out[out.length - 1];
+    if (last && last[0] === x && last[1] === y) continue;
+    out.push([x, y]);
+  }
+  while (out.length > 1 && out[0][0] === out[out.length - 1][0] && out[0][1] === out[out.length - 1][1]) out.pop();
+  return out;
+}
+
+/**
  * Union of polygons with holes; each connected region of the result is one polygon (outer CCW,
  * holes CW, no repeated closing point). Polygons that merely touch at an edge merge into one
- * region. `polygon-clipping` may reject numerically degenerate input; that is returned as
- * `{ ok: false }` rather than thrown.
+ * region. The input is snapped to a 1e-9 mm grid first (coordinates that agree to rounding
+ * become equal), and on a failure of `polygon-clipping` the union is retried on coarser grids
+ * up to 1e-5 mm; only if every grid fails is `{ ok: false }` returned (never a throw).
  */
 export function unionPolygons(polys: readonly Polygon2[]): UnionResult {
   if (polys.length === 0) return { ok: true, regions: [] };
-  const toGeom = (p: Polygon2): [number, number][][] => [p.outer, ...p.holes].map((r) => r.map((q) => [q[0], q[1]] as [number, number]));
-  try {
-    const [first, ...rest] = polys.map(toGeom);
-    const out = polygonClipping.union(first, ...rest);
-    const regions: Polygon2[] = [];
-    for (const poly of out) {
-      const rings = poly.map((r) => removeNearDuplicates(r.map((q) => [q[0], q[1]] as Vec2)));
-      if (rings.length === 0 || rings[0].length < 3) continue;
-      regions.push(normalizePolygon({ outer: rings[0], holes: rings.slice(1).filter((r) => r.length >= 3) }));
+  let message = '';
+  for (const g of UNION_GRIDS) {
+    const geoms: [number, number][][][] = [];
+    for (const p of polys) {
+      const outer = snapRing(p.outer, g);
+      if (outer.length >= 3) geoms.push([outer, ...p.holes.map((r) => snapRing(r, g)).filter((r) => r.length >= 3)]);
     }
-    return { ok: true, regions };
-  } catch (e) {
-    return { ok: false, message: e instanceof Error ? e.message : String(e) };
+    if (geoms.length === 0) return { ok: true, regions: [] };
+    try {
+      const [first, ...rest] = geoms;
+      const out = polygonClipping.union(first, ...rest);
+      const regions: Polygon2[] = [];
+      for (const poly of out) {
+        const rings = poly.map((r) => removeNearDuplicates(r.map((q) => [q[0], q[1]] as Vec2)));
+        if (rings.length === 0 || rings[0].length < 3) continue;
+        regions.push(normalizePolygon({ outer: rings[0], holes: rings.slice(1).filter((r) => r.length >= 3) }));
+      }
+      return { ok: true, regions };
+    } catch (e) {
+      message = e instanceof Error ? e.message : String(e);
+    }
   }
+  return { ok: false, message };
 }
 
 /**
