@@ -123,10 +123,10 @@ export function BriefForm({
         <TextField label="Title" error={errors.title?.message} {...register('title')} />
         <div className="space-y-2">
           <div className="flex items-center justify-between gap-3">
-            <span className="text-sm font-medium" id="brief-text-label">
+            <span className="text-sm font-medium" aria-hidden="true">
               Brief text (markdown)
             </span>
-            <div role="group" aria-label="Brief text view" className="inline-flex rounded-md border border-rule-strong">
+            <div role="group" aria-label="Show the brief text as" className="inline-flex rounded-md border border-rule-strong">
               {(['write', 'preview'] as const).map((t) => (
                 <button
                   key={t}
@@ -142,8 +142,7 @@ export function BriefForm({
           </div>
           <div className={tab === 'write' ? '' : 'hidden'}>
             <TextAreaField
-              label={<span className="sr-only">Brief text</span>}
-              aria-labelledby="brief-text-label"
+              label={<span className="sr-only">Brief text (markdown)</span>}
               className="min-h-56 font-mono text-sm"
               hint="Headings with #, lists with -, links as [text](https://…). HTML is not shown."
               error={errors.body?.message}

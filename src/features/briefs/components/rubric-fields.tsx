@@ -83,7 +83,7 @@ export function RubricFields({
       {criteria.fields.map((field, i) => (
         <div key={(field as unknown as { fieldKey: string }).fieldKey} role="group" aria-label={`Criterion ${i + 1}`} className="space-y-3 rounded-md border border-rule bg-paper/50 p-3">
           <div className="grid gap-3 sm:grid-cols-[minmax(0,1fr)_8rem_auto]">
-            <TextField label={`Criterion ${i + 1}`} error={rubricErrors?.[i]?.criterion?.message ?? rubricErrors?.[i]?.id?.message} {...register(`rubric.${i}.criterion` as never)} />
+            <TextField label={`Criterion ${i + 1} name`} error={rubricErrors?.[i]?.criterion?.message ?? rubricErrors?.[i]?.id?.message} {...register(`rubric.${i}.criterion` as never)} />
             <TextField label={`Criterion ${i + 1} weight`} inputMode="decimal" error={rubricErrors?.[i]?.weight?.message} {...register(`rubric.${i}.weight` as never, numberField)} />
             <Button variant="quiet" size="sm" className="self-end" onClick={() => criteria.remove(i)} aria-label={`Remove criterion ${i + 1}`}>
               Remove
