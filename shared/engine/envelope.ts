@@ -40,7 +40,12 @@ export interface EnvelopeFace {
   readonly vertices: number[];
 }
 
-/** The envelope as a polyhedron. */
+/**
+ * The envelope as a polyhedron. Vertices lie on their face planes to rounding (~1e-12 mm), except
+ * where edges shorter than the length tolerance were merged: such a vertex usually lies within
+ * twice the tolerance of each of its planes, and up to about three times it where two planes meet
+ * at ~1e-5 rad far from the centre (the topology stays closed either way).
+ */
 export interface Envelope {
   readonly vertices: Vec3[];
   /** Unordered vertex pairs, each with i < j. */
@@ -83,6 +88,8 @@ const BOX_FAMILY = -1;
 const SAME_DIRECTION = ANGLE_TOL * ANGLE_TOL;
 
 interface WorkFace {
+  /** Index of the bounding plane in the working list, or -1 for the starting cube. */
+  plane: number;
   family: number;
   normal: Vec3;
   offset: number;
@@ -153,7 +160,7 @@ const ROUNDING = 1e-10;
 
 /**
  * Per-vertex scratch of one envelope computation, indexed by vertex id and reused across cuts
- * (a cut marks the entries it wrote with its own stamp), so the hot loop allocates nothing.
+ * (a cut marks the entries it wrote with its own stamp), so cuts do not allocate per-vertex maps.
  */
 class Scratch {
   s = new Float64Array(256);
@@ -165,15 +172,15 @@ class Scratch {
   fit(n: number): void {
     if (n <= this.s.length) return;
     const size = Math.max(n, 2 * this.s.length);
-    const grow = <T extends Float64Array | Int8Array | Int32Array>(a: T, make: (k: number) => T): T => {
-      const b = make(size);
-      b.set(a as never);
-      return b;
-    };
-    this.s = grow(this.s, (k) => new Float64Array(k));
-    this.side = grow(this.side, (k) => new Int8Array(k));
-    this.seen = grow(this.seen, (k) => new Int32Array(k));
-    this.cap = grow(this.cap, (k) => new Int32Array(k));
+    const s = new Float64Array(size);
+    const side = new Int8Array(size);
+    const seen = new Int32Array(size);
+    const cap = new Int32Array(size);
+    s.set(this.s);
+    side.set(this.side);
+    seen.set(this.seen);
+    cap.set(this.cap);
+    Object.assign(this, { s, side, seen, cap });
   }
 }
 
@@ -181,7 +188,7 @@ class Scratch {
 const pairKey = (a: number, b: number) => (a < b ? a * 67108864 + b : b * 67108864 + a);
 
 /** Clips the solid by {x : x·n ≤ d}. Returns the new face list (the input is not changed). */
-function clip(pool: VertexPool, faces: readonly WorkFace[], plane: { normal: Vec3; offset: number; family: number }, sc: Scratch): WorkFace[] {
+function clip(pool: VertexPool, faces: readonly WorkFace[], plane: EnvelopePlane, index: number, sc: Scratch): WorkFace[] {
   const [nx, ny, nz] = plane.normal;
   const d = plane.offset;
   const stamp = ++sc.stamp;
@@ -262,7 +269,7 @@ function clip(pool: VertexPool, faces: readonly WorkFace[], plane: { normal: Vec
   }
   if (capIds.length >= 3) {
     const loop = rimLoop(next, sc, stamp) ?? orderAround(pool, capIds, plane.normal);
-    if (loop.length >= 3) next.push({ family: plane.family, normal: plane.normal, offset: plane.offset, verts: loop });
+    if (loop.length >= 3) next.push({ plane: index, family: plane.family, normal: plane.normal, offset: plane.offset, verts: loop });
   }
   return next;
 }
@@ -323,8 +330,8 @@ class UnionFind {
 
 /**
  * Applies the length tolerance: the ends of every edge shorter than `tol` become one vertex (at
- * their mean), so edges and faces smaller than the tolerance vanish. Then drops what no longer
- * bounds anything: faces left with fewer than three vertices, and vertices on fewer than three
+ * the member that best fits all their planes), so edges and faces smaller than the tolerance
+ * vanish. Then drops what no longer bounds anything: faces left with fewer than three vertices, and vertices on fewer than three
  * faces (points on a straight edge).
  */
 function collapseShortEdges(pool: VertexPool, faces: readonly WorkFace[], tol: number): WorkFace[] {
@@ -349,11 +356,33 @@ function collapseShortEdges(pool: VertexPool, faces: readonly WorkFace[], tol: n
       else if (!list.includes(v)) list.push(v);
     }
   }
+  // Each merged vertex goes where one of its members was: the member nearest to every face
+  // plane of the cluster (each member lies exactly on its own planes, so this keeps the worst
+  // distance to the planes below the cluster's size, and usually far below it).
+  const planesOf = new Map<number, WorkFace[]>();
+  for (const f of faces) {
+    for (const v of f.verts) {
+      const r = uf.find(v);
+      if ((members.get(r)?.length ?? 0) < 2) continue;
+      const list = planesOf.get(r) ?? planesOf.set(r, []).get(r)!;
+      if (!list.includes(f)) list.push(f);
+    }
+  }
   for (const [r, list] of members) {
     if (list.length < 2) continue;
-    const c = [0, 0, 0];
-    for (const v of list) for (let k = 0; k < 3; k++) c[k] += pool.xyz[3 * v + k] / list.length;
-    pool.set(r, [c[0], c[1], c[2]]);
+    const fs = planesOf.get(r)!;
+    let best = list[0];
+    let bestResidual = Infinity;
+    for (const v of list) {
+      const p = pool.point(v);
+      let worst = 0;
+      for (const f of fs) worst = Math.max(worst, Math.abs(dot(p, f.normal) - f.offset));
+      if (worst < bestResidual) {
+        bestResidual = worst;
+        best = v;
+      }
+    }
+    pool.set(r, pool.point(best));
   }
   let current = faces.map((f) => ({ ...f, verts: dedupeLoop(f.verts.map((v) => uf.find(v))) })).filter((f) => f.verts.length >= 3);
   for (let pass = 0; pass < 16; pass++) {
@@ -378,9 +407,10 @@ function collapseShortEdges(pool: VertexPool, faces: readonly WorkFace[], tol: n
 
 /**
  * Moves each vertex onto the least-squares meeting point of its face planes, which undoes the
- * rounding of repeated clipping (coordinates then agree with the planes to ~1e-12 mm). A vertex
- * whose planes are too close to parallel to fix a point, or whose fix would move it farther than
- * `tol`, stays where it is.
+ * rounding of repeated clipping (coordinates then agree with the planes to ~1e-12 mm) and places
+ * a vertex merged from a cluster of short edges where its planes best meet. A vertex whose planes
+ * are too close to parallel to fix a point, whose fix would move it farther than 10 × `tol`, or
+ * would not bring it nearer its planes, stays where it is.
  */
 function polishVertices(pool: VertexPool, faces: readonly WorkFace[], tol: number): void {
   const planesOf = new Map<number, WorkFace[]>();
@@ -403,7 +433,8 @@ function polishVertices(pool: VertexPool, faces: readonly WorkFace[], tol: numbe
     const c22 = a00 * a11 - a01 * a01;
     const p: Vec3 = [(c00 * b0 + c01 * b1 + c02 * b2) / det, (c01 * b0 + c11 * b1 + c12 * b2) / det, (c02 * b0 + c12 * b1 + c22 * b2) / det];
     const q = pool.point(v);
-    if (Math.hypot(p[0] - q[0], p[1] - q[1], p[2] - q[2]) <= tol) pool.set(v, p);
+    const residual = (x: Vec3) => Math.max(...fs.map((f) => Math.abs(dot(x, f.normal) - f.offset)));
+    if (Math.hypot(p[0] - q[0], p[1] - q[1], p[2] - q[2]) <= 10 * tol && residual(p) <= residual(q)) pool.set(v, p);
   }
 }
 
@@ -415,7 +446,7 @@ function boxFaces(pool: VertexPool, half: number): WorkFace[] {
     for (const sign of [-1, 1]) {
       const normal: Vec3 = [axis === 0 ? sign : 0, axis === 1 ? sign : 0, axis === 2 ? sign : 0];
       const on = ids.filter((id) => pool.xyz[3 * id + axis] * sign > 0);
-      faces.push({ family: BOX_FAMILY, normal, offset: half, verts: orderAround(pool, on, normal) });
+      faces.push({ plane: -1, family: BOX_FAMILY, normal, offset: half, verts: orderAround(pool, on, normal) });
     }
   }
   return faces;
@@ -442,7 +473,8 @@ function describeFamilies(names: readonly string[]): string {
  *
  * Edge cases: planes whose normals agree within {@link ANGLE_TOL} count as one direction, and only
  * the nearest of them bounds (with offsets within {@link LENGTH_TOL}, the first listed owns the
- * face); a redundant plane that only touches the solid at a vertex or along an edge makes no
+ * face); a plane whose whole face lies within {@link LENGTH_TOL} of a neighbouring face's plane is
+ * that plane (no sliver face at almost 180°); a redundant plane that only touches the solid at a vertex or along an edge makes no
  * face; a cut whose new edges are all shorter than {@link LENGTH_TOL} leaves nothing behind
  * (its vertices merge back into one). Throws {@link EnvelopeError} when a plane has offset ≤ {@link LENGTH_TOL}, a NaN
  * or a zero normal, when there are no planes, and when the planes do not close a solid (or the
@@ -474,19 +506,80 @@ export function envelopeOfPlanes(planes: readonly EnvelopePlane[], familyNames: 
     if (same < 0) unit.push({ normal: n, offset: p.offset, family: p.family });
     else if (p.offset < unit[same].offset - LENGTH_TOL) unit[same] = { normal: n, offset: p.offset, family: p.family };
   }
-  const pool = new VertexPool();
-  let faces = boxFaces(pool, reach * ENVELOPE_REACH);
-  const scratch = new Scratch();
-  for (const p of unit) faces = clip(pool, faces, p, scratch);
-  faces = collapseShortEdges(pool, faces, LENGTH_TOL);
-  polishVertices(pool, faces, LENGTH_TOL);
-  if (faces.length < 4 || faces.some((f) => f.family === BOX_FAMILY)) {
-    const used = [...new Set(planes.map((p) => p.family))].sort((a, b) => a - b).map(nameOf);
-    throw new EnvelopeError(
-      `${describeFamilies(used)} do${used.length === 1 ? 'es' : ''} not enclose a solid: add a family whose planes close it`,
-    );
+  let active = unit;
+  for (let pass = 0; ; pass++) {
+    const pool = new VertexPool();
+    let faces = boxFaces(pool, reach * ENVELOPE_REACH);
+    const scratch = new Scratch();
+    active.forEach((p, k) => {
+      faces = clip(pool, faces, p, k, scratch);
+    });
+    faces = collapseShortEdges(pool, faces, LENGTH_TOL);
+    if (faces.length < 4 || faces.some((f) => f.family === BOX_FAMILY)) {
+      const used = [...new Set(planes.map((p) => p.family))].sort((a, b) => a - b).map(nameOf);
+      throw new EnvelopeError(
+        `${describeFamilies(used)} do${used.length === 1 ? 'es' : ''} not enclose a solid: add a family whose planes close it`,
+      );
+    }
+    const drop = pass < 4 ? withinToleranceOfNeighbour(pool, faces, LENGTH_TOL) : new Set<number>();
+    if (drop.size === 0) {
+      polishVertices(pool, faces, LENGTH_TOL);
+      return assemble(pool, faces);
+    }
+    active = active.filter((_, k) => !drop.has(k));
   }
-  return assemble(pool, faces);
+}
+
+/**
+ * Planes whose whole face lies within `tol` of the plane of a neighbouring face: within the
+ * tolerance they are that plane, and their face would only show as a sliver meeting it at almost
+ * 180°. Smaller faces give way to larger ones; a face that gives way is not itself kept for another.
+ */
+function withinToleranceOfNeighbour(pool: VertexPool, faces: readonly WorkFace[], tol: number): Set<number> {
+  const byEdge = new Map<number, number[]>();
+  faces.forEach((f, fi) => {
+    for (let k = 0; k < f.verts.length; k++) {
+      const key = pairKey(f.verts[k], f.verts[(k + 1) % f.verts.length]);
+      (byEdge.get(key) ?? byEdge.set(key, []).get(key)!).push(fi);
+    }
+  });
+  const area = faces.map((f) => faceArea(pool, f.verts));
+  const lies = (f: WorkFace, g: WorkFace) =>
+    f.verts.every((v) => Math.abs(dot(pool.point(v), g.normal) - g.offset) <= tol);
+  const order = faces.map((_, k) => k).sort((a, b) => area[a] - area[b] || faces[b].plane - faces[a].plane);
+  const dropped = new Set<number>();
+  const drop = new Set<number>();
+  for (const fi of order) {
+    const f = faces[fi];
+    const neighbours = new Set<number>();
+    for (let k = 0; k < f.verts.length; k++) {
+      for (const gi of byEdge.get(pairKey(f.verts[k], f.verts[(k + 1) % f.verts.length])) ?? []) if (gi !== fi) neighbours.add(gi);
+    }
+    for (const gi of neighbours) {
+      if (dropped.has(gi) || faces[gi].plane < 0) continue;
+      if (lies(f, faces[gi])) {
+        dropped.add(fi);
+        drop.add(f.plane);
+        break;
+      }
+    }
+  }
+  return drop;
+}
+
+/** Area of a face loop (Newell's formula). */
+function faceArea(pool: VertexPool, verts: readonly number[]): number {
+  let ax = 0;
+  let ay = 0;
+  let az = 0;
+  for (let k = 0; k < verts.length; k++) {
+    const p = pool.point(verts[k]);
+    const q = pool.point(verts[(k + 1) % verts.length]);
+    ax += (p[1] - q[1]) * (p[2] + q[2]);
+    ay += (p[2] - q[2]) * (p[0] + q[0]);
+    az += (p[0] - q[0]) * (p[1] + q[1]);
+  }
+  return Math.hypot(ax, ay, az) / 2;
 }
 
 function assemble(pool: VertexPool, faces: readonly WorkFace[]): Envelope {

@@ -69,3 +69,9 @@ export function supportOffset(points: readonly Vec3[], n: Vec3): number {
   const len = Math.hypot(...n);
   return Math.max(...points.map((p) => (p[0] * n[0] + p[1] * n[1] + p[2] * n[2]) / len));
 }
+
+/**
+ * fast-check options for expensive properties: a failing property may shrink for a long time,
+ * so cap each run (generation plus shrinking) and report the interruption as a failure.
+ */
+export const PROPERTY_LIMITS = { interruptAfterTimeLimit: 60_000, markInterruptAsFailure: true } as const;
