@@ -1,0 +1,93 @@
+// @vitest-environment jsdom
+import { afterEach, describe, expect, it } from 'vitest';
+import { createElement } from 'react';
+import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
+
+// The server project has no DOM types, so elements are read through this small shape.
+interface El {
+  textContent: string | null;
+  getAttribute(name: string): string | null;
+}
+const el = (node: unknown) => node as El;
+
+// Loaded through a variable: tsconfig.server.json (which type-checks tests/) does not list src/.
+interface Finding {
+  code: string;
+  severity: 'error' | 'warning' | 'info';
+  message: string;
+  pieces: string[];
+}
+const FINDINGS_TABLE = '../../src/features/revisions/components/findings-table.js';
+const { FindingsTable } = (await import(FINDINGS_TABLE)) as { FindingsTable: (props: { findings: Finding[] }) => unknown };
+
+const findings: Finding[] = [
+  { code: 'short-joint', severity: 'warning', message: 'The joint between rib-01 and cap-02 is 4.1 mm long.', pieces: ['rib-01', 'cap-02'] },
+  { code: 'coplanar-merge', severity: 'info', message: 'Images of cap were unioned on 12 planes.', pieces: ['cap-01'] },
+  { code: 'disconnected', severity: 'error', message: 'The pieces form 2 separate groups.', pieces: Array.from({ length: 12 }, (_, i) => `keel-${String(i + 1).padStart(2, '0')}`) },
+  { code: 'short-joint', severity: 'warning', message: 'The joint between rib-03 and cap-04 is 3.0 mm long.', pieces: ['rib-03', 'cap-04'] },
+];
+
+function renderTable(data = findings) {
+  render(createElement(FindingsTable as never, { findings: data }));
+  return screen.getByRole('table', { name: 'Findings of the audit' });
+}
+const codes = (table: HTMLElement) =>
+  within(table)
+    .getAllByRole('row')
+    .slice(1)
+    .map((row) => el(within(row).getAllByRole('cell')[1]).textContent);
+
+afterEach(cleanup);
+
+describe('FindingsTable', () => {
+  it('lists errors first, then warnings, then info, each with its severity in words', () => {
+    const table = renderTable();
+    expect(codes(table)).toEqual(['disconnected', 'short-joint', 'short-joint', 'coplanar-merge']);
+    const firstRow = within(table).getAllByRole('row')[1];
+    expect(el(within(firstRow).getAllByRole('cell')[0]).textContent).toBe('Error');
+  });
+
+  it('reverses the severity order when its header is pressed again', () => {
+    const table = renderTable();
+    const header = within(table).getByRole('columnheader', { name: /Severity/ });
+    fireEvent.click(within(header).getByRole('button'));
+    expect(el(header).getAttribute('aria-sort')).toBe('descending');
+    expect(codes(table)[0]).toBe('coplanar-merge');
+  });
+
+  it('hides a severity when its box is cleared and says how many rows remain', () => {
+    const table = renderTable();
+    fireEvent.click(screen.getByRole('checkbox', { name: /Warning/ }));
+    expect(codes(table)).toEqual(['disconnected', 'coplanar-merge']);
+    expect(screen.getByText('2 of 4 rows')).toBeTruthy();
+  });
+
+  it('filters by code from the codes present', () => {
+    const table = renderTable();
+    const select = screen.getByLabelText('Code');
+    const options = within(select).getAllByRole('option').map((o) => el(o).textContent);
+    expect(options).toEqual(['All codes', 'coplanar-merge', 'disconnected', 'short-joint']);
+    fireEvent.change(select, { target: { value: 'short-joint' } });
+    expect(codes(table)).toEqual(['short-joint', 'short-joint']);
+  });
+
+  it('finds findings by a piece id typed into the search box', () => {
+    const table = renderTable();
+    fireEvent.change(screen.getByLabelText('Find pieces or words'), { target: { value: 'cap-04' } });
+    expect(codes(table)).toEqual(['short-joint']);
+    expect(within(table).getByText(/rib-03, cap-04/)).toBeTruthy();
+  });
+
+  it('names every piece of a finding, folding a long list behind its count', () => {
+    const table = renderTable();
+    const row = within(table).getAllByRole('row')[1];
+    expect(el(row).textContent).toContain('keel-01, keel-02');
+    expect(within(row).getByText('and 4 more')).toBeTruthy();
+    expect(el(row).textContent).toContain('keel-12');
+  });
+
+  it('says so when the audit found nothing', () => {
+    renderTable([]);
+    expect(screen.getByText('No findings: the audit found nothing to change.')).toBeTruthy();
+  });
+});
