@@ -8,7 +8,9 @@ import { describeError } from '../../components/ui/error-state.js';
 import { FormStatus, type FormStatusValue } from '../../components/ui/form-status.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { QueryView } from '../../components/ui/query-view.js';
+import { useMe } from '../../features/auth/api/get-me.js';
 import { briefQueryOptions, useBrief } from '../../features/briefs/api/get-brief.js';
+import { studioQueryOptions, useStudio } from '../../features/studios/api/get-studio.js';
 import { submissionsExportUrl, submissionsQueryOptions, useSubmissions } from '../../features/submissions/api/get-submissions.js';
 import { useReauditBrief } from '../../features/submissions/api/reaudit-brief.js';
 import { SubmissionFilters, SubmissionsTable } from '../../features/submissions/components/submissions-table.js';
@@ -18,7 +20,8 @@ import { parseIdParam } from './route-params.js';
 export function makeLoader(queryClient: QueryClient) {
   return async ({ params }: LoaderFunctionArgs) => {
     const briefId = parseIdParam(params.briefId, 'brief', '/briefs/1');
-    await queryClient.ensureQueryData(briefQueryOptions(briefId));
+    const brief = await queryClient.ensureQueryData(briefQueryOptions(briefId));
+    await queryClient.ensureQueryData(studioQueryOptions(brief.studioId));
     await Promise.allSettled([queryClient.ensureQueryData(submissionsQueryOptions(briefId, {}))]);
     return null;
   };
@@ -27,6 +30,10 @@ export function makeLoader(queryClient: QueryClient) {
 export function Component() {
   const briefId = parseIdParam(useParams().briefId, 'brief', '/briefs/1');
   const { data: brief } = useBrief(briefId);
+  const { data: studio } = useStudio(brief.studioId);
+  const { data: me } = useMe();
+  // The server decides; this only hides what an assigned critic may not do.
+  const manage = studio.myRole === 'instructor' || me?.globalRole === 'admin';
   const [filters, setFilters] = useState<SubmissionsQuery>({});
   const submissions = useSubmissions(briefId, filters);
   const reaudit = useReauditBrief(briefId);
@@ -48,16 +55,22 @@ export function Component() {
       <PageHeader
         eyebrow={<Link to={`/briefs/${brief.id}`}>{brief.title}</Link>}
         title="Submissions"
-        description="Each participant's latest revision with its audit figures. The table updates by itself while audits run."
+        description={
+          manage
+            ? 'Each participant’s latest revision with its audit figures. The table updates by itself while audits run.'
+            : 'The submissions assigned to you, with each latest revision’s audit figures.'
+        }
         actions={
-          <>
-            <Button variant="secondary" pending={reaudit.isPending} pendingLabel="Queuing…" onClick={() => void runReaudit()}>
-              Re-audit all
-            </Button>
-            <a href={submissionsExportUrl(brief.id)} download className={buttonClasses('secondary')}>
-              Export CSV
-            </a>
-          </>
+          manage ? (
+            <>
+              <Button variant="secondary" pending={reaudit.isPending} pendingLabel="Queuing…" onClick={() => void runReaudit()}>
+                Re-audit all
+              </Button>
+              <a href={submissionsExportUrl(brief.id)} download className={buttonClasses('secondary')}>
+                Export CSV
+              </a>
+            </>
+          ) : undefined
         }
       />
       <FormStatus status={status} />

@@ -76,12 +76,12 @@ export function Component() {
           </span>
         }
         actions={
-          manage ? (
+          manage || studio.myRole === 'critic' ? (
             <>
-              <ButtonLink to={`/briefs/${brief.id}/edit`}>Edit brief</ButtonLink>
+              {manage ? <ButtonLink to={`/briefs/${brief.id}/edit`}>Edit brief</ButtonLink> : null}
               {brief.state !== 'draft' ? (
                 <ButtonLink to={`/briefs/${brief.id}/submissions`} variant="primary">
-                  Submissions
+                  {manage ? 'Submissions' : 'Submissions assigned to me'}
                 </ButtonLink>
               ) : null}
             </>

@@ -7,6 +7,7 @@ import { FormStatus } from '../../../components/ui/form-status.js';
 import { formErrorMap, nullableNumberField, numberField } from '../../../lib/form-numbers.js';
 import { useSubmitStatus } from '../../../lib/use-submit-status.js';
 import { useCreateMaterial } from '../api/create-material.js';
+import { useDeleteMaterial } from '../api/delete-material.js';
 import { useUpdateMaterial } from '../api/update-material.js';
 
 type Values = CreateMaterialBody;
@@ -39,9 +40,22 @@ export function MaterialForm({ material, onClose }: { material: Material | null;
   const { status, fail, succeed, clear } = useSubmitStatus(form);
   const create = useCreateMaterial();
   const update = useUpdateMaterial();
+  const remove = useDeleteMaterial();
   const prohibited = watch('prohibited');
   const errors = formState.errors;
-  const pending = create.isPending || update.isPending;
+  const pending = create.isPending || update.isPending || remove.isPending;
+
+  const removeMaterial = async () => {
+    if (!material) return;
+    clear();
+    try {
+      await remove.mutateAsync(material.id);
+      onClose?.();
+    } catch (error) {
+      // 409 while a brief uses it: the server's sentence says which.
+      fail(error);
+    }
+  };
 
   const onSubmit = handleSubmit(async (values) => {
     clear();
@@ -138,6 +152,11 @@ export function MaterialForm({ material, onClose }: { material: Material | null;
         {material && onClose ? (
           <Button variant="secondary" onClick={onClose}>
             Close
+          </Button>
+        ) : null}
+        {material ? (
+          <Button variant="danger" className="ml-auto" pending={remove.isPending} pendingLabel="Removing…" disabled={pending} onClick={() => void removeMaterial()}>
+            Remove {material.name}
           </Button>
         ) : null}
       </div>
