@@ -11,7 +11,7 @@ import { briefConstraintsSchema } from '../../shared/api/briefs.js';
 import { fromSqlDate, rawDb, sqlDate } from '../db/raw.js';
 import type { Clock } from '../lib/clock.js';
 import { simpleHtml } from '../mail/mail-service.js';
-import type { Notifier } from '../notifications/service.js';
+import { settingsLine, type Notifier } from '../notifications/service.js';
 import type { BriefAuditResult } from './brief-rules.js';
 import type { AuditPool } from './pool.js';
 
@@ -122,11 +122,12 @@ export function createAuditRunner(deps: AuditRunnerDeps): AuditRunner {
       `Revision ${row.number} of your submission to "${row.brief_title}" was received.`,
       summary,
     ];
+    const footer = settingsLine(deps.publicUrl);
     await deps.notifier.sendOnce('revision-received', row.participant_id, row.revision_id, {
       to: row.participant_email,
       subject: `Revision ${row.number} received: ${row.brief_title}${result.ok ? (result.figures.ok ? ' (passes)' : ' (has errors)') : ' (audit failed)'}`,
-      text: `${lines.join('\n\n')}\n\nRead the audit: ${link}\n\n— Planewright\n`,
-      html: simpleHtml(lines, { href: link, label: 'Read the audit' }),
+      text: `${lines.join('\n\n')}\n\nRead the audit: ${link}\n\n${footer}\n\n— Planewright\n`,
+      html: simpleHtml([...lines, footer], { href: link, label: 'Read the audit' }),
     });
   }
 

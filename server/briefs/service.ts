@@ -20,7 +20,7 @@ import { Brief, BriefChange, Material, Membership, Studio, User } from '../db/en
 import { rawDb } from '../db/raw.js';
 import { ConflictError, NotFoundError, UnprocessableError } from '../http/errors.js';
 import { simpleHtml } from '../mail/mail-service.js';
-import { notifier } from '../notifications/service.js';
+import { notifier, settingsLine } from '../notifications/service.js';
 import { can, type Actor } from '../policy/policy.js';
 import { toCsv } from './csv.js';
 import { templateFamiliesOf } from './template-design.js';
@@ -205,8 +205,8 @@ export function briefsService(ctx: AppContext) {
       await notify.sendOnce('brief-published', m.userId, b.id, {
         to: m.user.email,
         subject: `New brief: ${b.title}`,
-        text: `${lines.join('\n\n')}\n\nRead the brief: ${link}\n\n— Planewright\n`,
-        html: simpleHtml(lines, { href: link, label: 'Read the brief' }),
+        text: `${lines.join('\n\n')}\n\nRead the brief: ${link}\n\n${settingsLine(ctx.config.publicUrl)}\n\n— Planewright\n`,
+        html: simpleHtml([...lines, settingsLine(ctx.config.publicUrl)], { href: link, label: 'Read the brief' }),
       });
     }
   }

@@ -19,3 +19,15 @@ export function sqlDate(d: Date): string {
 export function fromSqlDate(s: string | null): Date | null {
   return s === null ? null : new Date(s.replace(' ', 'T') + 'Z');
 }
+
+/**
+ * Waits until no transaction is open on the shared connection (another request's TypeORM
+ * transaction awaits between its statements), so a synchronous transaction started right after
+ * is a transaction of its own and never a savepoint inside someone else's.
+ */
+export async function whenNoTransaction(db: Database.Database): Promise<void> {
+  for (let waited = 0; db.inTransaction; waited += 2) {
+    if (waited > 10_000) throw new Error('the database stayed inside another transaction for 10 s');
+    await new Promise((resolve) => setTimeout(resolve, 2));
+  }
+}

@@ -7,7 +7,7 @@
 import type { AppContext } from '../context.js';
 import { rawDb, sqlDate } from '../db/raw.js';
 import { simpleHtml } from '../mail/mail-service.js';
-import { notifier } from './service.js';
+import { notifier, settingsLine } from './service.js';
 
 export const REMINDER_LEAD_MS = 48 * 60 * 60 * 1000;
 export const REMINDER_CHECK_MS = 60_000;
@@ -44,8 +44,8 @@ export function reminderJob(ctx: Pick<AppContext, 'dataSource' | 'mail' | 'clock
         await notify.sendOnce('deadline-reminder', d.user_id, d.brief_id, {
           to: d.email,
           subject: `Deadline in 48 hours: ${d.title}`,
-          text: `${lines.join('\n\n')}\n\nOpen the brief: ${link}\n\n— Planewright\n`,
-          html: simpleHtml(lines, { href: link, label: 'Open the brief' }),
+          text: `${lines.join('\n\n')}\n\nOpen the brief: ${link}\n\n${settingsLine(ctx.config.publicUrl)}\n\n— Planewright\n`,
+          html: simpleHtml([...lines, settingsLine(ctx.config.publicUrl)], { href: link, label: 'Open the brief' }),
         })
       ) {
         sent++;

@@ -67,3 +67,6 @@ export function notifier(deps: NotifierDeps) {
   };
 }
 export type Notifier = ReturnType<typeof notifier>;
+
+/** The last line of every notification: where to turn them off. */
+export const settingsLine = (publicUrl: string): string => `To turn these e-mails off, open ${publicUrl}/settings/notifications.`;

@@ -6,7 +6,7 @@ import type { Audit as AuditDto, AuditFigures, HistoryEntry, RevisionDetail, Rev
 import { withBriefMaterial } from '../audits/brief-rules.js';
 import type { AppContext } from '../context.js';
 import { Brief, Material, Membership } from '../db/entities/index.js';
-import { fromSqlDate, rawDb, sqlDate } from '../db/raw.js';
+import { fromSqlDate, rawDb, sqlDate, whenNoTransaction } from '../db/raw.js';
 import { BadRequestError, ConflictError, NotFoundError, UnprocessableError } from '../http/errors.js';
 import type { Actor } from '../policy/policy.js';
 import { createBlobStore, type BlobStore } from '../storage/blob-store.js';
@@ -153,6 +153,7 @@ export function revisionsService(ctx: AppContext) {
     }
     const now = sqlDate(ctx.clock.now());
     try {
+      await whenNoTransaction(db);
       return db.transaction(() => {
         db.prepare('INSERT OR IGNORE INTO submissions (brief_id, participant_id, created_at) VALUES (?, ?, ?)').run(args.briefId, args.participantId, now);
         const sub = db.prepare('SELECT id FROM submissions WHERE brief_id = ? AND participant_id = ?').get(args.briefId, args.participantId) as { id: number };
@@ -335,6 +336,7 @@ export function revisionsService(ctx: AppContext) {
         if (!allowed.has(id)) throw new UnprocessableError('Only critics of this studio can be assigned.', { [`body.userIds.${i}`]: `user ${id} is not a critic of this studio` });
       });
       const now = sqlDate(ctx.clock.now());
+      await whenNoTransaction(db);
       db.transaction(() => {
         db.prepare('DELETE FROM critic_assignments WHERE submission_id = ?').run(submissionId);
         const ins = db.prepare('INSERT OR IGNORE INTO critic_assignments (submission_id, critic_id, assigned_at) VALUES (?, ?, ?)');

@@ -58,6 +58,7 @@ describe('revision received', () => {
     expect(mails[0]).toMatchObject({ to: 'participant@example.org', subject: 'Revision 1 received: Mail lamp (passes)' });
     expect(mails[0].text).toContain('The audit found 0 errors and 0 warnings: 6 pieces, 12 joints, 1 connected group, 1 sheet.');
     expect(mails[0].text).toContain(`http://planewright.test/revisions/${res.body.id}`);
+    expect(mails[0].text).toContain('To turn these e-mails off, open http://planewright.test/settings/notifications.');
     await request(t.app).post(`/api/briefs/${b.id}/reaudit`).set('Cookie', instructor).expect(200);
     await t.ctx.audits.idle();
     expect((await t.outbox()).length).toBe(before + 1);
