@@ -69,6 +69,14 @@ export function Component() {
         {report ? (
           <div className="mt-6 space-y-6">
             <AuditSummary report={report} />
+            {report.sheets ? (
+              <section aria-labelledby="sheets-heading">
+                <h3 id="sheets-heading" className="mb-2 text-sm font-semibold">
+                  Sheet estimate
+                </h3>
+                <SheetEstimate sheets={report.sheets} />
+              </section>
+            ) : null}
           </div>
         ) : null}
       </Card>
@@ -81,26 +89,22 @@ export function Component() {
       ) : null}
 
       <div className="grid items-start gap-8 lg:grid-cols-2">
-        {report?.sheets ? (
-          <Card aria-labelledby="sheets-heading">
-            <CardHeader id="sheets-heading" title="Sheet estimate" />
-            <SheetEstimate sheets={report.sheets} />
-          </Card>
-        ) : null}
         <Card aria-labelledby="history-heading">
           <CardHeader id="history-heading" title="History" description="What got better or worse from one revision to the next." />
           <QueryView query={history} loadingLabel="Loading the history…" errorTitle="The history could not be loaded">
             {(entries) => <RevisionHistory entries={entries} currentRevisionId={revision.id} />}
           </QueryView>
         </Card>
-        <Card aria-labelledby="downloads-heading">
-          <CardHeader id="downloads-heading" title="Downloads" />
-          <RevisionDownloads revision={revision} />
-        </Card>
-        <Card aria-labelledby="photos-heading">
-          <CardHeader id="photos-heading" title="Photos" />
-          <PhotoThumbnails revision={revision} />
-        </Card>
+        <div className="space-y-8">
+          <Card aria-labelledby="downloads-heading">
+            <CardHeader id="downloads-heading" title="Downloads" />
+            <RevisionDownloads revision={revision} />
+          </Card>
+          <Card aria-labelledby="photos-heading">
+            <CardHeader id="photos-heading" title="Photos" />
+            <PhotoThumbnails revision={revision} />
+          </Card>
+        </div>
       </div>
     </div>
   );
