@@ -75,3 +75,19 @@ export function describeConstraints(c: BriefConstraints, material: { name: strin
   if (c.pieceCount) lines.push(`Between ${c.pieceCount.min} and ${c.pieceCount.max} pieces.`);
   return lines;
 }
+
+/** The folds of a group's rotation axes (FORMAT.md canonical normals); empty for an unknown name. */
+export function axisFolds(group: string): number[] {
+  if (group === 'I') return [2, 3, 5];
+  if (group === 'O') return [2, 3, 4];
+  if (group === 'T') return [2, 3];
+  const m = /^([CD])(\d+)$/.exec(group);
+  if (!m) return [];
+  const n = Number(m[2]);
+  return m[1] === 'C' ? [n] : [...new Set([2, n])].sort((a, b) => a - b);
+}
+
+/** Groups among `groups` that have no axis of this fold (a rule for them could never match). */
+export function groupsWithoutFold(groups: readonly string[], fold: number): string[] {
+  return groups.filter((g) => !axisFolds(g).includes(fold));
+}

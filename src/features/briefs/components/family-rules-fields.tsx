@@ -3,6 +3,7 @@ import { Button } from '../../../components/ui/button.js';
 import { SelectField, TextField } from '../../../components/ui/field.js';
 import { numberField } from '../../../lib/form-numbers.js';
 import { emptyFamilyRule } from './brief-form-schema.js';
+import { groupsWithoutFold } from './brief-words.js';
 
 type ListName = 'constraints.requiredFamilies' | 'constraints.allowedFamilies';
 
@@ -37,7 +38,7 @@ export function FamilyRulesFields({
   groups: string[];
 }) {
   const list = useFieldArray({ control, name: name as never });
-  const rules = useWatch({ control, name: name as never }) as unknown as Array<{ mode?: string }> | undefined;
+  const rules = useWatch({ control, name: name as never }) as unknown as Array<{ mode?: string; group?: string; axis?: number }> | undefined;
   const key = name === 'constraints.requiredFamilies' ? 'requiredFamilies' : 'allowedFamilies';
   const listErrors = (errors.constraints as Record<string, unknown> | undefined)?.[key] as (RuleErrors | undefined)[] & { message?: string } | undefined;
   const noun = key === 'requiredFamilies' ? 'Required family' : 'Allowed family';
@@ -49,6 +50,9 @@ export function FamilyRulesFields({
       {list.fields.map((field, i) => {
         const e = listErrors?.[i];
         const mode = rules?.[i]?.mode === 'normal' ? 'normal' : 'axis';
+        const fold = Number(rules?.[i]?.axis);
+        const ruleGroup = rules?.[i]?.group;
+        const lacking = mode === 'axis' && Number.isInteger(fold) && fold > 0 ? groupsWithoutFold(ruleGroup ? [ruleGroup] : groups, fold) : [];
         const base = `${name}.${i}` as const;
         return (
           <div key={field.id} role="group" aria-label={`${noun} ${i + 1}`} className="space-y-3 rounded-md border border-rule bg-paper/50 p-3">
@@ -83,7 +87,7 @@ export function FamilyRulesFields({
                 <TextField
                   label="Fold (2, 3, 4, 5 or n)"
                   inputMode="numeric"
-                  containerClassName="w-40"
+                  containerClassName="w-48"
                   error={e?.axis?.message}
                   {...register(`${base}.axis` as never, numberField)}
                 />
@@ -114,6 +118,11 @@ export function FamilyRulesFields({
                 {...register(`${base}.offsetMax` as never, numberField)}
               />
             </div>
+            {lacking.length ? (
+              <p className="text-sm text-ink-soft">
+                Note: {lacking.join(', ')} {lacking.length === 1 ? 'has' : 'have'} no {fold}-fold axis, so designs in {lacking.length === 1 ? 'that group' : 'those groups'} cannot match this rule.
+              </p>
+            ) : null}
             {e?.message ? <p className="text-sm text-signal-error">{e.message}</p> : null}
           </div>
         );
