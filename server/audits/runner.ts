@@ -94,6 +94,8 @@ export function createAuditRunner(deps: AuditRunnerDeps): AuditRunner {
       const design: unknown = JSON.parse(row.design);
       result = await deps.pool.run({ design, constraints, material: { name: row.m_name, thickness: row.m_thickness, kerf: row.m_kerf } }, controller.signal);
     } catch (e) {
+      // Shutting down: the pool stopped the run; the row stays running and is resumed at start.
+      if (closed) return;
       if (controller.signal.aborted) {
         result = { ok: false, error: `The audit took longer than ${Math.round(runner.timeoutMs / 1000)} s and was stopped. A design this large may need fewer motifs or simpler outlines; you can retry the audit.` };
       } else {

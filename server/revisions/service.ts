@@ -11,7 +11,7 @@ import { BadRequestError, ConflictError, NotFoundError, UnprocessableError } fro
 import type { Actor } from '../policy/policy.js';
 import { createBlobStore, type BlobStore } from '../storage/blob-store.js';
 import { designFromFile, designFromForm, designFromJson, type BuiltDesign, type UploadedFile } from './build-design.js';
-import { processPhoto } from './photos.js';
+import { MAX_PHOTO_PIXELS, PhotoTooLargeError, processPhoto } from './photos.js';
 import { KIND_NAMES, UnsupportedFileError, readMultipart, sniff } from './upload.js';
 
 interface RevisionRow {
@@ -190,7 +190,10 @@ export function revisionsService(ctx: AppContext) {
       let p;
       try {
         p = await processPhoto(f.buffer, kind);
-      } catch {
+      } catch (e) {
+        if (e instanceof PhotoTooLargeError) {
+          throw new UnprocessableError(`${f.originalname} is ${e.message}; photos may have at most ${MAX_PHOTO_PIXELS / 1e6} million pixels.`, { [`files.${f.fieldname}`]: `more than ${MAX_PHOTO_PIXELS / 1e6} million pixels` });
+        }
         throw new UnprocessableError(`${f.originalname} could not be read as an image; it may be damaged.`, { [`files.${f.fieldname}`]: 'the image could not be decoded' });
       }
       const base = f.originalname.replace(/\.[^.]*$/, '');

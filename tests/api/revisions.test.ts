@@ -261,6 +261,16 @@ describe('bad input: a clear message at the right field, nothing stored', () => 
     await refused(req, 413, 'files', /at most 10 files/);
   });
 
+  it('a photo that declares a huge image, or cannot be decoded, is 422 before anything is stored', async () => {
+    const png = await new Jimp({ width: 4, height: 4, color: 0xffffffff }).getBuffer('image/png');
+    const bomb = Buffer.from(png);
+    bomb.writeUInt32BE(60_000, 16); // IHDR width
+    bomb.writeUInt32BE(60_000, 20); // IHDR height
+    await refused(upload(participant).attach('design', json(cubePlates()), 'd.json').attach('photos', bomb, 'bomb.png'), 422, 'files.photos', /60000 × 60000 pixels; photos may have at most 40 million/);
+    const broken = Buffer.concat([png.subarray(0, 40), Buffer.alloc(20)]);
+    await refused(upload(participant).attach('design', json(cubePlates()), 'd.json').attach('photos', broken, 'broken.png'), 422, 'files.photos', /could not be read as an image/);
+  });
+
   it('a truncated multipart upload leaves no row and no file', async () => {
     const boundary = 'cutoffboundary';
     const body = Buffer.concat([
