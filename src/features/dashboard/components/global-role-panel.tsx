@@ -6,6 +6,7 @@ import { RoleBadge } from '../../../components/ui/role-badge.js';
 const ADMIN_LINKS = [
   { to: '/admin/users', label: 'Users', text: 'global roles, memberships, last sign-in' },
   { to: '/admin/studios', label: 'All studios', text: 'every studio; create a new one' },
+  { to: '/admin/materials', label: 'Material catalogue', text: 'thickness, kerf, cutting speed; prohibited materials and why' },
   { to: '/admin/outbox', label: 'Outbox', text: 'mail the server has sent' },
 ];
 
@@ -22,7 +23,7 @@ export function GlobalRolePanel({ role }: { role: GlobalRole }) {
         }
         description={
           role === 'admin'
-            ? 'You look after the people, the studios and the mail of this maker space.'
+            ? 'You look after the people, the studios, the materials and the mail of this maker space.'
             : 'You run the laser. Approved designs reach you as cut packs in the cut queue.'
         }
       />
