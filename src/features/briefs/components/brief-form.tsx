@@ -67,6 +67,7 @@ export function BriefForm({
   const update = useUpdateBrief(brief?.id ?? 0);
   const [tab, setTab] = useState<'write' | 'preview'>('write');
   const [busy, setBusy] = useState<Intent | 'close' | null>(null);
+  const [confirmClose, setConfirmClose] = useState(false);
   const intent = useRef<Intent>('save');
 
   const body = useWatch({ control, name: 'body' }) ?? '';
@@ -323,10 +324,21 @@ export function BriefForm({
               Save changes
             </Button>
           )}
-          {state === 'published' ? (
-            <Button variant="danger" pending={busy === 'close'} pendingLabel="Closing…" disabled={pending} onClick={() => void close()}>
+          {state === 'published' && !confirmClose ? (
+            <Button variant="danger" disabled={pending} onClick={() => setConfirmClose(true)}>
               Close brief
             </Button>
+          ) : null}
+          {state === 'published' && confirmClose ? (
+            <span className="flex flex-wrap items-center gap-2 rounded-md border border-signal-error/60 bg-signal-error-wash/50 px-3 py-1.5 text-sm" role="group" aria-label="Confirm closing the brief">
+              Closing takes no more revisions.
+              <Button variant="danger" size="sm" pending={busy === 'close'} pendingLabel="Closing…" disabled={pending} onClick={() => void close()}>
+                Yes, close the brief
+              </Button>
+              <Button variant="secondary" size="sm" disabled={pending} onClick={() => setConfirmClose(false)}>
+                Keep it open
+              </Button>
+            </span>
           ) : null}
         </div>
       </div>

@@ -28,7 +28,7 @@ export function BriefList({ briefs, canManage }: { briefs: Brief[]; canManage: b
           <div className="flex flex-wrap items-center gap-3 text-sm">
             {b.mySubmission?.auditState ? (
               <span className="inline-flex items-center gap-1.5">
-                Revision {b.mySubmission.latestRevision ?? '—'} <AuditStateBadge state={b.mySubmission.auditState} />
+                Your revision {b.mySubmission.latestRevision ?? '—'} <AuditStateBadge state={b.mySubmission.auditState} />
               </span>
             ) : null}
             <span className="text-right">
