@@ -2,7 +2,7 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { createElement, Suspense } from 'react';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { act, cleanup, render, screen } from '@testing-library/react';
+import { act, cleanup, fireEvent, render, screen } from '@testing-library/react';
 
 // Loaded through variables: tsconfig.server.json (which type-checks tests/) does not list src/.
 const GET_REVISION = '../../src/features/revisions/api/get-revision.js';
@@ -53,5 +53,48 @@ describe('audit polling', () => {
     await act(() => vi.advanceTimersByTimeAsync(10_000));
     expect(fetchMock.mock.calls.length).toBe(calls);
     expect(String(fetchMock.mock.calls[0][0])).toBe('/api/revisions/5');
+  });
+});
+
+const AUDIT_STATUS = '../../src/features/revisions/components/audit-status.js';
+const { AuditStatus } = (await import(AUDIT_STATUS)) as { AuditStatus: unknown };
+
+describe('AuditStatus', () => {
+  const fetchMock = vi.fn<typeof fetch>();
+  beforeEach(() => {
+    fetchMock.mockReset();
+    vi.stubGlobal('fetch', fetchMock);
+  });
+  afterEach(() => {
+    cleanup();
+    vi.unstubAllGlobals();
+  });
+  const failed = { id: 1, state: 'failed', attempts: 1, error: 'The worker stopped: the design has 40,000 pieces, more than the audit takes.', queuedAt: '2026-03-01T10:00:00Z', startedAt: null, finishedAt: null, report: null };
+  const renderStatus = (canRetry: boolean) => {
+    const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
+    render(createElement(QueryClientProvider, { client }, createElement(AuditStatus as never, { revisionId: 5, audit: failed, canRetry })));
+  };
+
+  it('says why a failed audit stopped and retries it on request', async () => {
+    fetchMock.mockResolvedValue(new Response(JSON.stringify({ ...failed, state: 'queued', attempts: 2 }), { status: 200, headers: { 'Content-Type': 'application/json' } }));
+    renderStatus(true);
+    expect(screen.getByText(/more than the audit takes/)).toBeTruthy();
+    fireEvent.click(screen.getByRole('button', { name: 'Retry the audit' }));
+    await vi.waitFor(() => expect(fetchMock).toHaveBeenCalled());
+    const [url, init] = fetchMock.mock.calls[0];
+    expect(url).toBe('/api/revisions/5/retry');
+    expect(init?.method).toBe('POST');
+  });
+
+  it('shows the server’s refusal of a retry', async () => {
+    fetchMock.mockResolvedValue(new Response(JSON.stringify({ error: { code: 'conflict', message: 'Only a failed audit can be retried.' } }), { status: 409, headers: { 'Content-Type': 'application/json' } }));
+    renderStatus(true);
+    fireEvent.click(screen.getByRole('button', { name: 'Retry the audit' }));
+    expect(await screen.findByText('Only a failed audit can be retried.')).toBeTruthy();
+  });
+
+  it('offers no retry to someone who may not ask for one', () => {
+    renderStatus(false);
+    expect(screen.queryByRole('button', { name: 'Retry the audit' })).toBeNull();
   });
 });
