@@ -9,6 +9,7 @@ import { BriefChangelog } from '../../features/briefs/components/brief-changelog
 import { BriefStateBadge } from '../../features/briefs/components/brief-state-badge.js';
 import { materialsQueryOptions } from '../../features/materials/api/get-materials.js';
 import { useDocumentTitle } from '../../lib/use-document-title.js';
+import { requireBriefWriter } from './brief-access.js';
 import { BriefEditorFrame } from './brief-editor-frame.js';
 import { parseIdParam } from './route-params.js';
 
@@ -16,6 +17,7 @@ export function makeLoader(queryClient: QueryClient) {
   return async ({ params }: LoaderFunctionArgs) => {
     const briefId = parseIdParam(params.briefId, 'brief', '/briefs/1');
     const brief = await queryClient.ensureQueryData(briefQueryOptions(briefId));
+    await requireBriefWriter(queryClient, brief.studioId);
     await Promise.allSettled([
       queryClient.ensureQueryData(materialsQueryOptions()),
       brief.state !== 'draft' ? queryClient.ensureQueryData(briefChangesQueryOptions(briefId)) : null,

@@ -2,15 +2,16 @@ import type { QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { materialsQueryOptions } from '../../features/materials/api/get-materials.js';
-import { studioQueryOptions, useStudio } from '../../features/studios/api/get-studio.js';
+import { useStudio } from '../../features/studios/api/get-studio.js';
 import { useDocumentTitle } from '../../lib/use-document-title.js';
+import { requireBriefWriter } from './brief-access.js';
 import { BriefEditorFrame } from './brief-editor-frame.js';
 import { parseIdParam } from './route-params.js';
 
 export function makeLoader(queryClient: QueryClient) {
   return async ({ params }: LoaderFunctionArgs) => {
     const studioId = parseIdParam(params.studioId, 'studio', '/studios/1');
-    await queryClient.ensureQueryData(studioQueryOptions(studioId));
+    await requireBriefWriter(queryClient, studioId);
     await Promise.allSettled([queryClient.ensureQueryData(materialsQueryOptions())]);
     return null;
   };

@@ -1,10 +1,11 @@
-import type { QueryClient } from '@tanstack/react-query';
+import { useQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { AuditStateBadge } from '../../components/ui/audit-state-badge.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { QueryView } from '../../components/ui/query-view.js';
 import { useMe } from '../../features/auth/api/get-me.js';
+import { briefQueryOptions } from '../../features/briefs/api/get-brief.js';
 import { auditPollInterval } from '../../features/revisions/api/audit-polling.js';
 import { historyQueryOptions, useHistory } from '../../features/revisions/api/get-submission.js';
 import { revisionQueryOptions, useRevision } from '../../features/revisions/api/get-revision.js';
@@ -25,6 +26,7 @@ export function makeLoader(queryClient: QueryClient) {
     await Promise.allSettled([
       queryClient.ensureQueryData(studioQueryOptions(revision.studioId)),
       queryClient.ensureQueryData(historyQueryOptions(revision.submissionId)),
+      queryClient.ensureQueryData(briefQueryOptions(revision.briefId)),
     ]);
     return null;
   };
@@ -35,6 +37,7 @@ export function Component() {
   const { data: revision } = useRevision(revisionId);
   const { data: studio } = useStudio(revision.studioId);
   const { data: me } = useMe();
+  const brief = useQuery(briefQueryOptions(revision.briefId));
   const audit = revision.audit;
   const history = useHistory(revision.submissionId, auditPollInterval(audit.state) !== false);
   const report = audit.state === 'done' ? audit.report : null;
@@ -48,7 +51,7 @@ export function Component() {
           <span className="flex flex-wrap gap-2">
             <Link to={`/studios/${studio.id}`}>{studio.name}</Link>
             <span aria-hidden="true">/</span>
-            <Link to={`/briefs/${revision.briefId}`}>Brief</Link>
+            <Link to={`/briefs/${revision.briefId}`}>{brief.data?.title ?? 'Brief'}</Link>
           </span>
         }
         title={`Revision ${revision.number}${revision.title ? `: ${revision.title}` : ''}`}
