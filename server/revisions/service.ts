@@ -225,7 +225,6 @@ export function revisionsService(ctx: AppContext) {
         const fields = (req.body ?? {}) as Record<string, unknown>;
         const designFile = files.find((f) => f.fieldname === 'design');
         const photoFiles = files.filter((f) => f.fieldname === 'photos');
-        photos = await photosOf(photoFiles);
         if (designFile) {
           const extra = files.filter((f) => f !== designFile && f.fieldname !== 'photos');
           if (extra.length) throw new BadRequestError(`Send either a design document or outlines, not both (${extra[0].fieldname}).`, { [`files.${extra[0].fieldname}`]: 'not expected with a design document' });
@@ -240,6 +239,8 @@ export function revisionsService(ctx: AppContext) {
           const stray = outlines.find((f) => !named.has(f.fieldname));
           if (stray) throw new BadRequestError(`The file field ${stray.fieldname} belongs to no motif.`, { [`files.${stray.fieldname}`]: 'not named by any motif' });
         }
+        // Photos last: decoding is the costly part, and a design that is refused needs none.
+        photos = await photosOf(photoFiles);
       } else {
         built = designFromJson((req.body as { design?: unknown } | undefined)?.design);
       }
