@@ -77,7 +77,7 @@ export function SheetEstimate({ sheets }: { sheets: NonNullable<AuditReportDto['
   return (
     <div className="space-y-3">
       <p className="text-sm">
-        {sheets.count} {sheets.count === 1 ? 'sheet' : 'sheets'} of {w} × {h} mm, {Math.round(used * 100)} % of their area used by pieces.
+        {sheets.count} {sheets.count === 1 ? 'sheet' : 'sheets'} of {w} × {h} mm, {Math.round(used * 100)} % of {sheets.count === 1 ? 'its' : 'their'} area used by pieces.
       </p>
       <div className="flex flex-wrap gap-2" aria-hidden="true">
         {Array.from({ length: shown }, (_, i) => (

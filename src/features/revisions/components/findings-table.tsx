@@ -57,7 +57,7 @@ const columns: ColumnDef<FindingRow, any>[] = [
     accessorKey: 'code',
     header: 'Code',
     filterFn: inSet,
-    cell: ({ row }) => <code className="font-mono text-xs">{row.original.code}</code>,
+    cell: ({ row }) => <code className="whitespace-nowrap font-mono text-xs">{row.original.code}</code>,
   },
   { id: 'message', accessorKey: 'message', header: 'What to change', enableSorting: false, cell: ({ row }) => <span className="block min-w-64">{row.original.message}</span> },
   {
