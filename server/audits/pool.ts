@@ -7,6 +7,8 @@ import { Piscina } from 'piscina';
 import type { BriefAuditInput, BriefAuditResult } from './brief-rules.js';
 
 export interface AuditPool {
+  /** Threads that run at once; the runner hands over no more audits than this at a time. */
+  readonly threads: number;
   run(input: BriefAuditInput, signal: AbortSignal): Promise<BriefAuditResult>;
   close(): Promise<void>;
 }
@@ -25,6 +27,7 @@ export function createAuditPool(threads = DEFAULT_AUDIT_THREADS): AuditPool {
       idleTimeout: 60_000,
     }));
   return {
+    threads: Math.max(1, threads),
     async run(input, signal) {
       if (closed) throw new Error('the audit pool is closed');
       return (await get().run(input, { signal })) as BriefAuditResult;

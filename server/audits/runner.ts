@@ -5,6 +5,10 @@
  * fails. Re-queuing an audit that is running (a brief's constraints changed) starts a new
  * generation: the old run's result is discarded because the row's `queued_at` no longer matches.
  * When a revision's first audit finishes, its participant gets the "revision received" e-mail.
+ *
+ * The runner keeps its own queue and hands the pool no more audits than it has threads, so an
+ * audit is `running` only while a thread works on it and the time limit measures the audit, not
+ * the wait behind a burst of uploads.
  */
 import type { DataSource } from 'typeorm';
 import { briefConstraintsSchema } from '../../shared/api/briefs.js';
@@ -133,11 +137,27 @@ export function createAuditRunner(deps: AuditRunnerDeps): AuditRunner {
     });
   }
 
+  const waiting: Job[] = [];
+  let active = 0;
+
+  function pump(): void {
+    while (!closed && active < Math.max(1, deps.pool.threads) && waiting.length > 0) {
+      const job = waiting.shift()!;
+      active++;
+      const p = runJob(job)
+        .catch((e: unknown) => log(e))
+        .finally(() => {
+          active--;
+          inFlight.delete(p);
+          pump();
+        });
+      inFlight.add(p);
+    }
+  }
+
   function track(job: Job): void {
-    const p = runJob(job)
-      .catch((e: unknown) => log(e))
-      .finally(() => inFlight.delete(p));
-    inFlight.add(p);
+    waiting.push(job);
+    pump();
   }
 
   const runner: AuditRunner = {
@@ -173,10 +193,11 @@ export function createAuditRunner(deps: AuditRunnerDeps): AuditRunner {
       return runner.requeueRevisions(stale.map((s) => s.revision_id));
     },
     async idle() {
-      while (inFlight.size > 0) await Promise.allSettled([...inFlight]);
+      while (inFlight.size > 0 || (waiting.length > 0 && !closed)) await Promise.allSettled([...inFlight]);
     },
     async close() {
       closed = true;
+      waiting.length = 0;
       await deps.pool.close().catch((e: unknown) => log(e));
       await Promise.allSettled([...inFlight]);
     },

@@ -20,9 +20,10 @@ interface Pending {
   reject: (e: unknown) => void;
 }
 
-function handPool(): AuditPool & { pending: Pending[] } {
+function handPool(threads = 2): AuditPool & { pending: Pending[] } {
   const pending: Pending[] = [];
   return {
+    threads,
     pending,
     run: (input) => new Promise<BriefAuditResult>((resolve, reject) => pending.push({ input, resolve, reject })),
     close: async () => undefined,
@@ -31,6 +32,7 @@ function handPool(): AuditPool & { pending: Pending[] } {
 
 let t: TestApp;
 let revisionId: number;
+let others: number[];
 const logged: unknown[] = [];
 
 beforeAll(async () => {
@@ -40,6 +42,8 @@ beforeAll(async () => {
   const b = await makeBrief(t, instructor);
   const res = await request(t.app).post(`/api/briefs/${b.id}/revisions`).set('Cookie', participant).send({ design: cubePlates() });
   revisionId = res.body.id;
+  others = [];
+  for (const half of [40, 45]) others.push((await request(t.app).post(`/api/briefs/${b.id}/revisions`).set('Cookie', participant).send({ design: cubePlates(half) })).body.id);
   await t.ctx.audits.idle();
 });
 afterAll(async () => {
@@ -73,6 +77,26 @@ describe('audit runner', () => {
     await runner.idle();
     expect(row().state).toBe('done');
     expect(JSON.parse(row().figures!).pieces).toBe(6);
+  });
+
+  it('hands the pool no more audits than it has threads; the rest wait as queued', async () => {
+    const pool = handPool(1);
+    const runner = runnerWith(pool);
+    const ids = [revisionId, ...others];
+    expect(runner.requeueRevisions(ids)).toBe(3);
+    await tick();
+    const states = () => ids.map((id) => (rawDb(t.ds).prepare('SELECT state FROM audits WHERE revision_id = ?').get(id) as { state: string }).state);
+    expect(pool.pending).toHaveLength(1);
+    expect(states()).toEqual(['running', 'queued', 'queued']);
+    for (let i = 0; i < 3; i++) {
+      const r = auditAgainstBrief(pool.pending[i].input);
+      if (!r.ok) throw new Error(r.error);
+      pool.pending[i].resolve(r);
+      await tick();
+      expect(pool.pending).toHaveLength(Math.min(3, i + 2));
+    }
+    await runner.idle();
+    expect(states()).toEqual(['done', 'done', 'done']);
   });
 
   it('when the pool throws, the audit is failed with a sentence and the error is logged', async () => {
