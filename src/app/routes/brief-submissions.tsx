@@ -76,7 +76,19 @@ export function Component() {
       <FormStatus status={status} />
       <Card aria-label="Submissions table">
         <QueryView query={submissions} loadingLabel="Loading the submissions…" errorTitle="The submissions could not be loaded">
-          {(rows) => <SubmissionsTable rows={rows} toolbar={<SubmissionFilters filters={filters} onChange={setFilters} />} />}
+          {(rows) => (
+            <SubmissionsTable
+              rows={rows}
+              toolbar={
+                <div className="flex flex-wrap items-end gap-4">
+                  <SubmissionFilters filters={filters} onChange={setFilters} />
+                  <span role="status" className="pb-1.5 font-mono text-xs text-ink-soft">
+                    {submissions.isPlaceholderData ? 'Updating…' : ''}
+                  </span>
+                </div>
+              }
+            />
+          )}
         </QueryView>
       </Card>
     </div>
