@@ -7,7 +7,7 @@ export default defineConfig({
       {
         test: {
           name: 'unit',
-          include: ['tests/unit/**/*.test.ts', 'tests/engine/**/*.test.ts'],
+          include: ['tests/unit/**/*.test.{ts,tsx}', 'tests/engine/**/*.test.ts'],
           environment: 'node',
           server: { deps: { inline: ['quickhull3d'] } },
           testTimeout: 30_000,
