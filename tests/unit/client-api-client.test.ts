@@ -1,25 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-// The client's modules are loaded through a path held in a variable: tsconfig.server.json (which
-// type-checks tests/) does not list src/, and a static import would pull src/ into that project.
-// The local types below restate the parts of the module these tests use.
-interface ApiErrorLike extends Error {
-  status: number;
-  code: string;
-  fields: Record<string, string>;
-}
-interface ApiClientModule {
-  ApiError: new (...args: never[]) => ApiErrorLike;
-  apiRequest: (path: string, options?: { method?: string; body?: unknown }) => Promise<unknown>;
-  api: {
-    get: (path: string) => Promise<unknown>;
-    post: (path: string, body?: unknown) => Promise<unknown>;
-  };
-  configureApiClient: (options: { onUnauthorized: (error: ApiErrorLike) => void }) => void;
-  safeNextPath: (next: string | null | undefined) => string;
-  signInPath: (next: string) => string;
-}
-const API_CLIENT = '../../src/lib/api-client.js';
-const { api, ApiError, apiRequest, configureApiClient, safeNextPath, signInPath } = (await import(API_CLIENT)) as ApiClientModule;
+import { api, ApiError, apiRequest, configureApiClient, safeNextPath, signInPath } from '../../src/lib/api-client.js';
 
 function jsonResponse(status: number, body: unknown): Response {
   return new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json; charset=utf-8' } });
@@ -70,7 +50,7 @@ describe('apiRequest', () => {
 
   it('when an error answer is not JSON (a proxy page), still throws a readable ApiError', async () => {
     fetchMock.mockResolvedValue(new Response('<html>Bad gateway</html>', { status: 502, headers: { 'Content-Type': 'text/html' } }));
-    const error = (await api.get('/api/studios').catch((e: unknown) => e)) as ApiErrorLike;
+    const error = (await api.get('/api/studios').catch((e: unknown) => e)) as ApiError;
     expect(error).toBeInstanceOf(ApiError);
     expect(error.status).toBe(502);
     expect(error.code).toBe('http_502');

@@ -2,19 +2,8 @@ import { describe, expect, it, vi } from 'vitest';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { loginBodySchema } from '../../shared/api/auth.js';
 import { createStudioBodySchema, inviteBodySchema } from '../../shared/api/studios.js';
-// The client's modules are loaded through a path held in a variable: tsconfig.server.json (which
-// type-checks tests/) does not list src/, and a static import would pull src/ into that project.
-// The local types below restate the parts of the module these tests use.
-interface FormErrorsModule {
-  fieldNameFromPath: (path: string) => string;
-  applyFieldErrors: (
-    fields: Record<string, string>,
-    formFields: readonly string[],
-    setError: (name: string, error: { type: string; message: string }) => void,
-  ) => string[];
-}
-const FORM_ERRORS = '../../src/lib/form-errors.js';
-const { applyFieldErrors, fieldNameFromPath } = (await import(FORM_ERRORS)) as FormErrorsModule;
+import { applyFieldErrors, fieldNameFromPath } from '../../src/lib/form-errors.js';
+
 type Errors = Record<string, { message?: string } | undefined>;
 
 const resolverOptions = { fields: {}, shouldUseNativeValidation: false } as const;

@@ -1,10 +1,5 @@
 import { describe, expect, it } from 'vitest';
-// The client's modules are loaded through a path held in a variable: tsconfig.server.json (which
-// type-checks tests/) does not list src/, and a static import would pull src/ into that project.
-// The local types below restate the parts of the module these tests use.
-type TextPart = { kind: 'text'; text: string } | { kind: 'link'; text: string; href: string };
-const LINKIFY = '../../src/lib/linkify.js';
-const { splitLinks } = (await import(LINKIFY)) as { splitLinks: (text: string) => TextPart[] };
+import { splitLinks } from '../../src/lib/linkify.js';
 
 describe('splitLinks', () => {
   it('when the text has no link, returns it whole', () => {

@@ -1,28 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { QueryClient } from '@tanstack/react-query';
-// The client's modules are loaded through a path held in a variable: tsconfig.server.json (which
-// type-checks tests/) does not list src/, and a static import would pull src/ into that project.
-// The local types below restate the parts of the module these tests use.
-type Key = readonly unknown[];
-interface StudioKeys {
-  all: Key;
-  lists: () => Key;
-  list: () => Key;
-  detail: (id: number) => Key;
-  members: (id: number) => Key;
-  invitations: (id: number) => Key;
-}
-interface AdminKeys {
-  users: () => Key;
-  userList: () => Key;
-  outbox: () => Key;
-  mailList: () => Key;
-  mail: (id: number) => Key;
-}
-const STUDIO_KEYS = '../../src/features/studios/api/keys.js';
-const ADMIN_KEYS = '../../src/features/admin/api/keys.js';
-const { studioKeys } = (await import(STUDIO_KEYS)) as { studioKeys: StudioKeys };
-const { adminKeys } = (await import(ADMIN_KEYS)) as { adminKeys: AdminKeys };
+import { adminKeys } from '../../src/features/admin/api/keys.js';
+import { studioKeys } from '../../src/features/studios/api/keys.js';
 
 function seeded() {
   const client = new QueryClient();

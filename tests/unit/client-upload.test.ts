@@ -1,29 +1,6 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-// The client's modules are loaded through a path held in a variable: tsconfig.server.json (which
-// type-checks tests/) does not list src/. The local types restate the parts used here.
-interface ApiErrorLike extends Error {
-  status: number;
-  code: string;
-  fields: Record<string, string>;
-}
-interface Progress {
-  loaded: number;
-  total: number | null;
-  fraction: number | null;
-}
-interface ApiClientModule {
-  apiUpload: (path: string, form: FormData, options?: { onProgress?: (p: Progress) => void; signal?: AbortSignal }) => Promise<unknown>;
-  configureApiClient: (options: { onUnauthorized: (error: ApiErrorLike) => void }) => void;
-  isApiError: (e: unknown) => e is ApiErrorLike;
-}
-const API_CLIENT = '../../src/lib/api-client.js';
-const { apiUpload, configureApiClient, isApiError } = (await import(API_CLIENT)) as ApiClientModule;
-
-interface PanelModule {
-  foldsOf: (group: string) => number[];
-  isShown: (key: string, mode: 'file' | 'form', motifCount: number) => boolean;
-}
-const PANEL = '../../src/features/revisions/components/upload-revision-panel.js';
+import { apiUpload, configureApiClient, isApiError, type UploadProgress } from '../../src/lib/api-client.js';
+import { foldsOf, isShown } from '../../src/features/revisions/components/upload-revision-panel.js';
 
 type Listener = (event: { loaded: number; total: number; lengthComputable: boolean }) => void;
 
@@ -91,7 +68,7 @@ describe('apiUpload', () => {
   });
 
   it('posts the form with credentials and reports progress as a fraction', async () => {
-    const seen: Progress[] = [];
+    const seen: UploadProgress[] = [];
     const form = new FormData();
     form.append('group', 'I');
     const done = apiUpload('/api/briefs/3/revisions', form, { onProgress: (p) => seen.push(p) });
@@ -155,9 +132,7 @@ describe('apiUpload', () => {
   });
 });
 
-describe('upload panel helpers', async () => {
-  const { foldsOf, isShown } = (await import(PANEL)) as PanelModule;
-
+describe('upload panel helpers', () => {
   it('offers the folds each group has (FORMAT.md canonical normals)', () => {
     expect(foldsOf('I')).toEqual([2, 3, 5]);
     expect(foldsOf('O')).toEqual([2, 3, 4]);

@@ -1,31 +1,14 @@
 // @vitest-environment jsdom
 import { afterEach, describe, expect, it } from 'vitest';
-import { createElement } from 'react';
 import { cleanup, render, screen } from '@testing-library/react';
-
-interface El {
-  textContent: string | null;
-  innerHTML: string;
-  getAttribute(name: string): string | null;
-  querySelector(selector: string): El | null;
-  querySelectorAll(selector: string): ArrayLike<El>;
-}
-const el = (node: unknown) => node as El;
-
-// Loaded through variables: tsconfig.server.json (which type-checks tests/) does not list src/.
-const MARKDOWN = '../../src/components/ui/markdown-view.js';
-const BADGES = '../../src/components/ui/audit-state-badge.js';
-const { MarkdownView, safeUrl } = (await import(MARKDOWN)) as { MarkdownView: (p: { source: string }) => unknown; safeUrl: (url: string) => string };
-const { AuditStateBadge, SeverityBadge } = (await import(BADGES)) as {
-  AuditStateBadge: (p: { state: string; detail?: string }) => unknown;
-  SeverityBadge: (p: { severity: string }) => unknown;
-};
+import { AuditStateBadge, SeverityBadge } from '../../src/components/ui/audit-state-badge.js';
+import { MarkdownView, safeUrl } from '../../src/components/ui/markdown-view.js';
 
 afterEach(cleanup);
 
-function renderMarkdown(source: string): El {
-  const { container } = render(createElement(MarkdownView as never, { source }));
-  return el(container);
+function renderMarkdown(source: string): HTMLElement {
+  const { container } = render(<MarkdownView source={source} />);
+  return container;
 }
 
 describe('MarkdownView', () => {
@@ -85,9 +68,9 @@ describe('AuditStateBadge and SeverityBadge', () => {
       ['running', 'Running'],
       ['done', 'Done'],
       ['failed', 'Failed'],
-    ]) {
-      const { container } = render(createElement(AuditStateBadge as never, { state, detail: state === 'done' ? '2 errors' : undefined }));
-      const badge = el(container).querySelector('[data-audit-state]')!;
+    ] as const) {
+      const { container } = render(<AuditStateBadge state={state} detail={state === 'done' ? '2 errors' : undefined} />);
+      const badge = container.querySelector('[data-audit-state]')!;
       expect(badge.getAttribute('data-audit-state')).toBe(state);
       expect(badge.textContent).toContain(`Audit ${label}`);
       marks.add(badge.querySelector('svg')!.innerHTML);
@@ -97,7 +80,7 @@ describe('AuditStateBadge and SeverityBadge', () => {
   });
 
   it('adds the detail after the state', () => {
-    render(createElement(AuditStateBadge as never, { state: 'done', detail: '2 errors' }));
+    render(<AuditStateBadge state="done" detail="2 errors" />);
     expect(screen.getByText(/2 errors/)).toBeTruthy();
   });
 
@@ -107,9 +90,9 @@ describe('AuditStateBadge and SeverityBadge', () => {
       ['error', 'Error'],
       ['warning', 'Warning'],
       ['info', 'Info'],
-    ]) {
-      const { container } = render(createElement(SeverityBadge as never, { severity }));
-      const badge = el(container).querySelector('[data-severity]')!;
+    ] as const) {
+      const { container } = render(<SeverityBadge severity={severity} />);
+      const badge = container.querySelector('[data-severity]')!;
       expect(badge.textContent).toBe(label);
       marks.add(badge.querySelector('svg')!.innerHTML);
       cleanup();

@@ -1,18 +1,16 @@
 // @vitest-environment jsdom
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { createElement, Suspense } from 'react';
+import { Suspense } from 'react';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { act, cleanup, fireEvent, render, screen } from '@testing-library/react';
-
-// Loaded through variables: tsconfig.server.json (which type-checks tests/) does not list src/.
-const GET_REVISION = '../../src/features/revisions/api/get-revision.js';
-const POLLING = '../../src/features/revisions/api/audit-polling.js';
-const { useRevision } = (await import(GET_REVISION)) as { useRevision: (id: number) => { data: { audit: { state: string } } } };
-const { auditPollInterval } = (await import(POLLING)) as { auditPollInterval: (s: string | null | undefined) => number | false };
+import type { Audit } from '../../shared/api/revisions.js';
+import { auditPollInterval } from '../../src/features/revisions/api/audit-polling.js';
+import { useRevision } from '../../src/features/revisions/api/get-revision.js';
+import { AuditStatus } from '../../src/features/revisions/components/audit-status.js';
 
 function Probe() {
   const { data } = useRevision(5);
-  return createElement('p', null, `state ${data.audit.state}`);
+  return <p>{`state ${data.audit.state}`}</p>;
 }
 
 const revision = (state: string) =>
@@ -42,7 +40,13 @@ describe('audit polling', () => {
   it('follows queued → running → done on screen, then stops asking', async () => {
     fetchMock.mockResolvedValueOnce(revision('queued')).mockResolvedValueOnce(revision('running')).mockResolvedValue(revision('done'));
     const client = new QueryClient({ defaultOptions: { queries: { retry: false } } });
-    render(createElement(QueryClientProvider, { client }, createElement(Suspense, { fallback: 'loading' }, createElement(Probe))));
+    render(
+      <QueryClientProvider client={client}>
+        <Suspense fallback="loading">
+          <Probe />
+        </Suspense>
+      </QueryClientProvider>,
+    );
     expect(await screen.findByText('state queued')).toBeTruthy();
     await act(() => vi.advanceTimersByTimeAsync(1600));
     expect(await screen.findByText('state running')).toBeTruthy();
@@ -56,9 +60,6 @@ describe('audit polling', () => {
   });
 });
 
-const AUDIT_STATUS = '../../src/features/revisions/components/audit-status.js';
-const { AuditStatus } = (await import(AUDIT_STATUS)) as { AuditStatus: unknown };
-
 describe('AuditStatus', () => {
   const fetchMock = vi.fn<typeof fetch>();
   beforeEach(() => {
@@ -69,10 +70,14 @@ describe('AuditStatus', () => {
     cleanup();
     vi.unstubAllGlobals();
   });
-  const failed = { id: 1, state: 'failed', attempts: 1, error: 'The worker stopped: the design has 40,000 pieces, more than the audit takes.', queuedAt: '2026-03-01T10:00:00Z', startedAt: null, finishedAt: null, report: null };
+  const failed: Audit = { id: 1, state: 'failed', attempts: 1, error: 'The worker stopped: the design has 40,000 pieces, more than the audit takes.', queuedAt: '2026-03-01T10:00:00Z', startedAt: null, finishedAt: null, report: null };
   const renderStatus = (canRetry: boolean) => {
     const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
-    render(createElement(QueryClientProvider, { client }, createElement(AuditStatus as never, { revisionId: 5, audit: failed, canRetry })));
+    render(
+      <QueryClientProvider client={client}>
+        <AuditStatus revisionId={5} audit={failed} canRetry={canRetry} />
+      </QueryClientProvider>,
+    );
   };
 
   it('says why a failed audit stopped and retries it on request', async () => {

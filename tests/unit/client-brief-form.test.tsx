@@ -1,51 +1,26 @@
 // @vitest-environment jsdom
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { createElement } from 'react';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { cleanup, fireEvent, render, screen, waitFor } from '@testing-library/react';
 import type { Brief } from '../../shared/api/briefs.js';
 import type { Material } from '../../shared/api/materials.js';
-
-interface El {
-  textContent: string | null;
-  value?: string;
-  disabled?: boolean;
-  getAttribute(name: string): string | null;
-}
-const el = (node: unknown) => node as El;
-
-// Loaded through variables: tsconfig.server.json (which type-checks tests/) does not list src/.
-// The local types restate the parts used here.
-interface SchemaModule {
-  briefFormSchema: { safeParse: (v: unknown) => { success: boolean; data?: Record<string, any>; error?: { issues: { path: PropertyKey[]; message: string }[] } } };
-  briefFormDefaults: (brief: Brief | null, firstMaterialId: number | undefined) => Record<string, any>;
-}
-interface WordsModule {
-  describeConstraints: (c: Brief['constraints'], m: { name: string; thickness: number; kerf: number } | null) => string[];
-  describeGroup: (name: string) => string;
-}
-interface FormatModule {
-  formatTimeLeft: (iso: string, now?: number) => string;
-  fromLocalInput: (value: string) => string | null;
-  toLocalInput: (iso: string) => string;
-}
-const { briefFormSchema, briefFormDefaults } = (await import('../../src/features/briefs/components/brief-form-schema.js' as string)) as SchemaModule;
-const { describeConstraints, describeGroup } = (await import('../../src/features/briefs/components/brief-words.js' as string)) as WordsModule;
-const { formatTimeLeft, fromLocalInput, toLocalInput } = (await import('../../src/lib/format.js' as string)) as FormatModule;
-const { parseOrders } = (await import('../../src/features/briefs/components/group-picker.js' as string)) as { parseOrders: (t: string, min: number) => number[] | null };
-const { BriefForm } = (await import('../../src/features/briefs/components/brief-form.js' as string)) as { BriefForm: unknown };
+import { briefFormDefaults, briefFormSchema, type BriefFormValues } from '../../src/features/briefs/components/brief-form-schema.js';
+import { BriefForm } from '../../src/features/briefs/components/brief-form.js';
+import { describeConstraints, describeGroup } from '../../src/features/briefs/components/brief-words.js';
+import { parseOrders } from '../../src/features/briefs/components/group-picker.js';
+import { formatTimeLeft, fromLocalInput, toLocalInput } from '../../src/lib/format.js';
 
 const materials: Material[] = [
   { id: 1, name: 'Birch plywood', thickness: 3, kerf: 0.2, cuttingSpeed: 15, density: 680, sheetSizes: [[600, 400]], prohibited: false, prohibitedReason: null, notes: '', createdAt: '', updatedAt: '' },
   { id: 2, name: 'PVC / vinyl', thickness: 3, kerf: 0.2, cuttingSpeed: null, density: null, sheetSizes: [], prohibited: true, prohibitedReason: 'Releases hydrogen chloride when cut.', notes: '', createdAt: '', updatedAt: '' },
 ];
 
-function valid(): Record<string, any> {
+function valid(): BriefFormValues {
   const v = briefFormDefaults(null, 1);
   v.title = 'Lantern';
   return v;
 }
-const issues = (r: ReturnType<SchemaModule['briefFormSchema']['safeParse']>) => Object.fromEntries((r.error?.issues ?? []).map((i) => [i.path.join('.'), i.message]));
+const issues = (r: ReturnType<typeof briefFormSchema.safeParse>) => Object.fromEntries((r.error?.issues ?? []).map((i) => [i.path.join('.'), i.message]));
 
 describe('briefFormSchema', () => {
   it('turns the local deadline into an ISO instant and empty optional boxes into absent values', () => {
@@ -167,15 +142,19 @@ describe('BriefForm', () => {
   });
   const renderForm = (onSaved = vi.fn()) => {
     const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
-    render(createElement(QueryClientProvider, { client }, createElement(BriefForm as never, { studioId: 1, brief: null, materials, onSaved })));
+    render(
+      <QueryClientProvider client={client}>
+        <BriefForm studioId={1} brief={null} materials={materials} onSaved={onSaved} />
+      </QueryClientProvider>,
+    );
     return onSaved;
   };
 
   it('offers prohibited materials only as disabled choices with their reason', () => {
     renderForm();
-    const option = screen.getByRole('option', { name: /PVC \/ vinyl/ });
-    expect(el(option).disabled).toBe(true);
-    expect(el(option).textContent).toContain('Releases hydrogen chloride');
+    const option = screen.getByRole<HTMLOptionElement>('option', { name: /PVC \/ vinyl/ });
+    expect(option.disabled).toBe(true);
+    expect(option.textContent).toContain('Releases hydrogen chloride');
     expect(screen.getByText(/cannot be chosen/)).toBeTruthy();
   });
 
@@ -197,8 +176,8 @@ describe('BriefForm', () => {
     fireEvent.change(screen.getByLabelText('Title'), { target: { value: 'Lantern' } });
     fireEvent.click(screen.getByRole('button', { name: 'Save draft' }));
     expect(await screen.findByText('the space has 2 lasers; at most 40 sheets')).toBeTruthy();
-    expect(el(screen.getByLabelText('Maximum sheets')).getAttribute('aria-invalid')).toBe('true');
-    expect(el(screen.getByRole('status')).textContent).toContain('Some values were not accepted.');
+    expect(screen.getByLabelText('Maximum sheets').getAttribute('aria-invalid')).toBe('true');
+    expect(screen.getByRole('status').textContent).toContain('Some values were not accepted.');
     const [url, init] = fetchMock.mock.calls[0];
     expect(url).toBe('/api/studios/1/briefs');
     const sent = JSON.parse(String(init?.body));
@@ -222,6 +201,6 @@ describe('BriefForm', () => {
     await waitFor(() => expect(onSaved).toHaveBeenCalled());
     expect(fetchMock.mock.calls.map(([u, i]) => `${i?.method} ${u}`)).toEqual(['POST /api/studios/1/briefs', 'POST /api/briefs/9/publish']);
     expect(onSaved.mock.calls[0][1]).toBe('publish');
-    expect(el(screen.getByRole('status')).textContent).toContain('Published “Lantern”.');
+    expect(screen.getByRole('status').textContent).toContain('Published “Lantern”.');
   });
 });
