@@ -137,7 +137,7 @@ it('a brief is published, a failing revision is fixed, and the instructor sees b
   expect(problems.filter((p) => !/^HTTP 401: \/api\/revisions\/\d+$/.test(p))).toEqual([]);
 });
 
-it('the links out of the studio page and the submissions table open their pages', { timeout: 120_000 }, async () => {
+it('the links out of the studio page, the submissions table and a revision page open their pages', { timeout: 120_000 }, async () => {
   await browser.context.clearCookies();
   const page = await browser.context.newPage();
   const { problems } = watchPage(page);
@@ -150,7 +150,7 @@ it('the links out of the studio page and the submissions table open their pages'
   await heading().filter({ hasText: 'New brief' }).waitFor({ timeout: 15_000 });
 
   await page.goto(`${app.url}/studios/1`);
-  await page.getByRole('list', { name: 'Briefs' }).getByRole('link', { name: 'Icosahedral lantern' }).click();
+  await page.getByRole('list', { name: 'Briefs' }).getByRole('link', { name: 'Icosahedral lantern', exact: true }).click();
   await heading().filter({ hasText: 'Icosahedral lantern' }).waitFor({ timeout: 15_000 });
 
   await page.getByRole('link', { name: 'Submissions' }).first().click();
@@ -158,6 +158,10 @@ it('the links out of the studio page and the submissions table open their pages'
   await page.getByRole('table', { name: 'Submissions' }).getByRole('link', { name: /^Revision \d+ of / }).first().click();
   await page.waitForURL(/\/revisions\/\d+$/, { timeout: 15_000 });
   await heading().filter({ hasText: /^Revision \d+/ }).waitFor({ timeout: 15_000 });
+  // From an audit with findings back to its brief, as a participant does before uploading again.
+  const briefLink = page.getByRole('main').getByRole('link', { name: 'Icosahedral lantern', exact: true });
+  await briefLink.click();
+  await heading().filter({ hasText: 'Icosahedral lantern' }).waitFor({ timeout: 15_000 });
 
   await page.close();
   expect(problems).toEqual([]);
