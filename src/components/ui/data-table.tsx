@@ -12,6 +12,9 @@ import {
 } from '@tanstack/react-table';
 import { cn } from './cn.js';
 
+// One shared empty state: a fresh `[]` per render would make the table reset and render again.
+const NO_FILTERS: ColumnFiltersState = [];
+
 // A row matches when one of its cells contains every typed word (any order, any case).
 const containsAllWords: FilterFn<unknown> = (row, columnId, filterValue) => {
   const words = String(filterValue ?? '')
@@ -72,7 +75,7 @@ export function DataTable<T>({
   const table = useReactTable({
     data,
     columns,
-    state: { sorting, globalFilter, columnFilters: columnFilters ?? [] },
+    state: { sorting, globalFilter, columnFilters: columnFilters ?? NO_FILTERS },
     onSortingChange: setSorting,
     onGlobalFilterChange: setGlobalFilter,
     globalFilterFn: containsAllWords as FilterFn<T>,

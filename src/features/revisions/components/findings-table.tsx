@@ -85,9 +85,14 @@ export function FindingsTable({ findings, caption = 'Findings of the audit' }: {
   }, [findings]);
   const codes = useMemo(() => [...new Set(findings.map((f) => f.code))].sort(), [findings]);
 
-  const columnFilters: ColumnFiltersState = [];
-  if (severities.length < SEVERITIES.length) columnFilters.push({ id: 'severity', value: severities });
-  if (code) columnFilters.push({ id: 'code', value: [code] });
+  // Memoised: a new filter array on every render makes the table reset its page index and
+  // render again, without end.
+  const columnFilters = useMemo(() => {
+    const filters: ColumnFiltersState = [];
+    if (severities.length < SEVERITIES.length) filters.push({ id: 'severity', value: severities });
+    if (code) filters.push({ id: 'code', value: [code] });
+    return filters;
+  }, [severities, code]);
 
   const toggle = (s: SeverityName) =>
     setSeverities((current) => (current.includes(s) ? current.filter((x) => x !== s) : SEVERITIES.filter((x) => x === s || current.includes(x))));
