@@ -17,6 +17,9 @@ const envSchema = z.object({
   PUBLIC_URL: z.string().url('PUBLIC_URL must be a URL such as https://planewright.example.org').optional(),
   LOGIN_RATE_LIMIT: z.coerce.number().int().positive('LOGIN_RATE_LIMIT must be a positive whole number').default(10),
   TRUST_PROXY: z.string().optional(),
+  ADMIN_EMAIL: z.string().trim().toLowerCase().email('ADMIN_EMAIL must be an e-mail address').optional(),
+  ADMIN_PASSWORD: z.string().min(10, 'ADMIN_PASSWORD must be at least 10 characters').max(72).optional(),
+  ADMIN_NAME: z.string().trim().min(1).max(120).optional(),
 });
 
 export interface Config {
@@ -32,6 +35,8 @@ export interface Config {
   loginRateLimit: number;
   /** Passed to `app.set('trust proxy', …)` when set (e.g. `1` or `loopback`). */
   trustProxy: string | undefined;
+  /** The first admin of a fresh production install (ignored once any account exists). */
+  bootstrapAdmin: { email: string; password: string; name: string } | undefined;
 }
 
 export class ConfigError extends Error {}
@@ -64,6 +69,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     publicUrl: (e.PUBLIC_URL ?? `http://localhost:${e.PORT}`).replace(/\/+$/, ''),
     loginRateLimit: e.LOGIN_RATE_LIMIT,
     trustProxy: e.TRUST_PROXY,
+    bootstrapAdmin:
+      e.ADMIN_EMAIL && e.ADMIN_PASSWORD ? { email: e.ADMIN_EMAIL, password: e.ADMIN_PASSWORD, name: e.ADMIN_NAME ?? 'Admin' } : undefined,
   };
 }
 

@@ -15,12 +15,14 @@ import { createMailService } from './mail/mail-service.js';
 import { startMailSink, type MailSink } from './mail/sink.js';
 import { reminderJob } from './notifications/reminders.js';
 import { notifier } from './notifications/service.js';
+import { bootstrapInstall } from './seed/bootstrap.js';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD, seedDemoIfEmpty } from './seed/demo.js';
 
 async function main(): Promise<void> {
   const config = loadConfig();
   const dataSource = await openDatabase(config.databasePath);
   const seeded = config.nodeEnv === 'production' ? false : await seedDemoIfEmpty(dataSource, { env: config.nodeEnv });
+  const bootstrap = config.nodeEnv === 'production' ? await bootstrapInstall(dataSource, config.bootstrapAdmin, systemClock.now()) : 'not-empty';
 
   let sink: MailSink | null = null;
   if (!config.smtpUrl) sink = await startMailSink(dataSource, systemClock);
@@ -42,6 +44,10 @@ async function main(): Promise<void> {
 
   console.log(`Planewright is running at http://${shownHost}:${port}`);
   console.log(`  database: ${config.databasePath}${seeded ? ' (demo data added)' : ''}`);
+  if (bootstrap === 'created') console.log(`  first admin: ${config.bootstrapAdmin!.email}; starting material catalogue added`);
+  if (bootstrap === 'no-admin-configured') {
+    console.log('  no accounts yet: set ADMIN_EMAIL and ADMIN_PASSWORD (at least 10 characters) and start again to create the first admin');
+  }
   if (resumed > 0) console.log(`  audits: ${resumed} unfinished audit${resumed === 1 ? '' : 's'} queued again`);
   console.log(sink ? `  mail: in-process sink on ${sink.url} (admin → Outbox shows every message)` : `  mail: ${new URL(config.smtpUrl!).host}`);
   if (config.nodeEnv !== 'production') {

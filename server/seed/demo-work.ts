@@ -6,10 +6,9 @@
 import { existsSync, readFileSync } from 'node:fs';
 import type { EntityManager } from 'typeorm';
 import { briefConstraintsSchema, type BriefConstraints, type CreateBriefBody } from '../../shared/api/briefs.js';
-import { createMaterialBodySchema } from '../../shared/api/materials.js';
 import { auditAgainstBrief } from '../audits/brief-rules.js';
-import { Audit, Brief, CriticAssignment, Material, Revision, Submission } from '../db/entities/index.js';
-import { STARTING_CATALOGUE } from '../materials/catalogue.js';
+import { Audit, Brief, CriticAssignment, Revision, Submission } from '../db/entities/index.js';
+import { seedCatalogue } from './bootstrap.js';
 
 const DAY = 24 * 60 * 60 * 1000;
 const PLYWOOD = 'Birch plywood 3 mm';
@@ -121,12 +120,7 @@ function designFile(name: string): unknown | null {
 
 export async function seedStudioWork(m: EntityManager, args: { studioId: number; userIds: ReadonlyMap<string, number>; now: Date }): Promise<void> {
   const { now } = args;
-  const materials = m.getRepository(Material);
-  const saved = new Map<string, Material>();
-  for (const raw of STARTING_CATALOGUE) {
-    const b = createMaterialBodySchema.parse(raw);
-    saved.set(b.name, await materials.save(materials.create({ ...b, sheetSizes: JSON.stringify(b.sheetSizes), createdAt: now, updatedAt: now })));
-  }
+  const saved = await seedCatalogue(m, now);
   const ply = saved.get(PLYWOOD)!;
   const instructorId = args.userIds.get('instructor@example.org') ?? null;
   const criticId = args.userIds.get('critic@example.org');
