@@ -1,0 +1,174 @@
+// Render data for the viewer. The slab checks are worked out by hand (a prism of a rectangle has
+// volume width × height × thickness and 6 vertices per outline point with flat-shaded walls).
+// The placement check is independent of the scene code: every instance's matrix, applied to the
+// template outline, must land on the piece's own world outline (toWorld of its polygon).
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { parseDesign, parseDesignText } from '../../shared/engine/design.js';
+import { signedDistance, toWorld } from '../../shared/engine/frames.js';
+import type { Polygon2, ResolvedDesign } from '../../shared/engine/model.js';
+import { buildPieces } from '../../shared/engine/pieces.js';
+import { audit } from '../../shared/engine/audit.js';
+import { buildScene, congruenceMap, meshVolume, slabGeometry, transformPoint, usableJoints } from '../../shared/engine/scene.js';
+import type { Vec3 } from '../../shared/engine/vec.js';
+import { expectClose, expectSamePointSet } from './support.js';
+
+function load(url: URL): ResolvedDesign {
+  const r = parseDesignText(readFileSync(url, 'utf8'));
+  if (!r.ok) throw new Error(JSON.stringify(r.errors));
+  return r.design;
+}
+const fixture = (name: string) => load(new URL(`../fixtures/designs/${name}.json`, import.meta.url));
+const demo = (name: string) => load(new URL(`../../server/seed/designs/${name}.json`, import.meta.url));
+
+const rect: Polygon2 = {
+  outer: [
+    [0, 0],
+    [10, 0],
+    [10, 20],
+    [0, 20],
+  ],
+  holes: [],
+};
+
+describe('slabGeometry', () => {
+  it('when the outline is a 10 × 20 rectangle: 24 vertices, 12 triangles, volume 10·20·t', () => {
+    const g = slabGeometry(rect, 3);
+    expect(g.positions.length / 3).toBe(24);
+    expect(g.indices.length / 3).toBe(12);
+    expectClose(meshVolume(g), 10 * 20 * 3, 1e-9, 'volume');
+    const zs = new Set<number>();
+    for (let i = 2; i < g.positions.length; i += 3) zs.add(g.positions[i]);
+    expect([...zs].sort((a, b) => a - b)).toEqual([-1.5, 1.5]);
+  });
+
+  it('when the rectangle is given clockwise the volume stays positive', () => {
+    const g = slabGeometry({ outer: [...rect.outer].reverse(), holes: [] }, 2);
+    expectClose(meshVolume(g), 400, 1e-9, 'volume');
+  });
+
+  it('when the outline has a hole the hole is cut (volume loses the hole)', () => {
+    const holed: Polygon2 = {
+      outer: [
+        [-10, -10],
+        [10, -10],
+        [10, 10],
+        [-10, 10],
+      ],
+      holes: [
+        [
+          [-2, -3],
+          [2, -3],
+          [2, 3],
+          [-2, 3],
+        ],
+      ],
+    };
+    const g = slabGeometry(holed, 4);
+    expect(g.positions.length / 3).toBe(6 * 8);
+    expectClose(meshVolume(g), (400 - 24) * 4, 1e-6, 'volume');
+  });
+
+  it('when the thickness is not positive the geometry is empty', () => {
+    expect(slabGeometry(rect, 0).positions.length).toBe(0);
+    expect(meshVolume(slabGeometry(rect, -1))).toBe(0);
+  });
+});
+
+describe('congruenceMap', () => {
+  it('when the target is an irregular quadrilateral mirrored and moved, the map mirrors and carries every vertex onto it', () => {
+    const quad: Polygon2 = { outer: [[0, 0], [10, 0], [12, 20], [0, 15]], holes: [] };
+    const mirror = ([x, y]: readonly [number, number]) => [-y + 5, -x + 7] as const;
+    const to: Polygon2 = { outer: quad.outer.map(mirror).reverse(), holes: [] };
+    const r = congruenceMap(quad, to);
+    expect(r).not.toBeNull();
+    expect(r!.m[0] * r!.m[3] - r!.m[1] * r!.m[2]).toBeLessThan(0);
+    for (const q of quad.outer) {
+      const [ex, ey] = mirror(q);
+      expectClose(r!.m[0] * q[0] + r!.m[1] * q[1] + r!.tx, ex, 1e-9, 'x');
+      expectClose(r!.m[2] * q[0] + r!.m[3] * q[1] + r!.ty, ey, 1e-9, 'y');
+    }
+  });
+
+  it('when the shapes are not congruent there is no map', () => {
+    const to: Polygon2 = { outer: rect.outer.map(([x, y]) => [x * 1.01, y] as const), holes: [] };
+    expect(congruenceMap(rect, to)).toBeNull();
+  });
+});
+
+/** Every instance's outline and holes, mapped to the world, land on its piece's world outline. */
+function expectPlacementsExact(d: ResolvedDesign): void {
+  const build = buildPieces(d);
+  const scene = buildScene(d, build);
+  const byId = new Map(build.pieces.map((p) => [p.id, p]));
+  const seen = new Set<string>();
+  for (const mesh of scene.meshes) {
+    for (const inst of mesh.instances) {
+      const piece = byId.get(inst.piece)!;
+      seen.add(inst.piece);
+      expect(inst.template).toBe(piece.template);
+      const world = (ring: readonly (readonly [number, number])[]): Vec3[] => ring.map((q) => toWorld(piece.frame, q));
+      const mapped = (ring: readonly (readonly [number, number])[], z = 0): Vec3[] => ring.map((q) => transformPoint(inst.matrix, [q[0], q[1], z]));
+      expectSamePointSet(mapped(mesh.outline.outer), world(piece.polygon.outer), 1e-6, `${inst.piece} outline`);
+      expectSamePointSet(mapped(mesh.outline.holes.flat()), world(piece.polygon.holes.flat()), 1e-6, `${inst.piece} holes`);
+      // The caps lie half a thickness either side of the piece's plane.
+      for (const p of mapped(mesh.outline.outer, d.material.thickness / 2)) expectClose(Math.abs(signedDistance(piece.frame, p)), d.material.thickness / 2, 1e-9, 'cap distance');
+      // A proper rigid motion: det of the upper 3 × 3 is +1.
+      const m = inst.matrix;
+      const det = m[0] * (m[5] * m[10] - m[9] * m[6]) - m[4] * (m[1] * m[10] - m[9] * m[2]) + m[8] * (m[1] * m[6] - m[5] * m[2]);
+      expectClose(det, 1, 1e-9, 'det');
+    }
+  }
+  expect(seen.size).toBe(build.pieces.length);
+  expect(scene.pieceCount).toBe(build.pieces.length);
+  // Draw calls: one mesh per template unless a fallback was needed (none expected here).
+  expect(scene.meshes.length).toBe(build.templates.length);
+}
+
+describe('buildScene', () => {
+  it('when the design is the D4 fin table (deck at offset 0 is reached mirrored): every instance lands on its piece', () => {
+    expectPlacementsExact(fixture('d4-fins-deck'));
+  });
+
+  it('when the design is the octahedral cube plates: every instance lands on its piece', () => {
+    expectPlacementsExact(fixture('o-cube-plates'));
+  });
+
+  it('when the design is the octahedral cross merge (merged regions): every instance lands on its piece', () => {
+    expectPlacementsExact(fixture('o-cross-merge'));
+  });
+
+  it('when the design is the demo facet lamp (holes): every instance lands on its piece', () => {
+    expectPlacementsExact(demo('o-facet-lamp'));
+  });
+
+  it('when the design is the demo keel lantern (icosahedral): every instance lands on its piece', () => {
+    expectPlacementsExact(demo('i-keel-lantern'));
+  });
+
+  it('when joints come from the audit they become world segments with kind and orthogonal flag', () => {
+    const d = fixture('d4-fins-deck');
+    const report = audit(d, { nesting: false, fabrication: false });
+    const scene = buildScene(d, buildPieces(d), usableJoints(JSON.parse(JSON.stringify(report.joints)) as unknown[]));
+    expect(scene.joints.length).toBe(report.joints.length);
+    expect(scene.joints.length).toBeGreaterThan(0);
+    scene.joints.forEach((j, i) => {
+      expect(j.kind).toBe(report.joints[i].kind);
+      expect(j.orthogonal).toBe(report.joints[i].orthogonal);
+      expect(j.from).toEqual(report.joints[i].from);
+      expect(j.locked).toBe(report.joints[i].kind === 'locked-crossing');
+    });
+  });
+
+  it('when a stored joint lacks its end points it is left out', () => {
+    expect(usableJoints([{ a: 'x', b: 'y', kind: 'corner', orthogonal: true }, null, { a: 'x', b: 'y', kind: 'corner', orthogonal: true, from: [0, 0, 0], to: [1, 0, 0] }])).toHaveLength(1);
+  });
+
+  it('when the design has no motifs the scene is empty with radius 0', () => {
+    const r = parseDesign({ format: 'planewright/design@1', title: 't', symmetry: 'O', material: { name: 'm', thickness: 3 }, families: [{ id: 'f', axis: 4, offset: 10 }], motifs: [] });
+    if (!r.ok) throw new Error(JSON.stringify(r.errors));
+    const scene = buildScene(r.design, buildPieces(r.design));
+    expect(scene.meshes).toHaveLength(0);
+    expect(scene.radius).toBe(0);
+  });
+});
