@@ -170,8 +170,7 @@ function slabClashes(pieces: readonly Piece[], t: number): Finding[] {
       g = { ref: p, entries: [] };
       groups.set(key, g);
     }
-    const ref = g.ref.frame;
-    const box = ringBox(p === g.ref ? p.polygon.outer : p.polygon.outer.map((q) => toFrame(ref, toWorld(p.frame, q))));
+    const box = p.frame === g.ref.frame ? ringBox(p.polygon.outer) : ringBoxIn(p, g.ref.frame);
     g.entries.push({ piece: p, s: dot(p.frame.origin, c), box });
   }
   const clashes: Clash[] = [];
@@ -319,6 +318,33 @@ function placementKey(a: Piece, b: Piece): string {
   const m2 = Math.round((a1 * lb0 + a3 * lb2) * 1e6);
   const m3 = Math.round((a1 * lb1 + a3 * lb3) * 1e6);
   return `${m0},${m1},${m2},${m3}|${Math.round((a0 * t0 + a2 * t1) * 100)},${Math.round((a1 * t0 + a3 * t1) * 100)}`;
+}
+
+/** Box of `p`'s outline seen in the frame `ref` of a parallel plane (the outline projected). */
+function ringBoxIn(p: Piece, ref: Piece['frame']): [number, number, number, number] {
+  const f = p.frame;
+  const l0 = dot(f.u, ref.u);
+  const l1 = dot(f.v, ref.u);
+  const l2 = dot(f.u, ref.v);
+  const l3 = dot(f.v, ref.v);
+  const ox = f.origin[0] - ref.origin[0];
+  const oy = f.origin[1] - ref.origin[1];
+  const oz = f.origin[2] - ref.origin[2];
+  const t0 = ox * ref.u[0] + oy * ref.u[1] + oz * ref.u[2];
+  const t1 = ox * ref.v[0] + oy * ref.v[1] + oz * ref.v[2];
+  let x0 = Infinity;
+  let y0 = Infinity;
+  let x1 = -Infinity;
+  let y1 = -Infinity;
+  for (const q of p.polygon.outer) {
+    const x = l0 * q[0] + l1 * q[1] + t0;
+    const y = l2 * q[0] + l3 * q[1] + t1;
+    if (x < x0) x0 = x;
+    if (x > x1) x1 = x;
+    if (y < y0) y0 = y;
+    if (y > y1) y1 = y;
+  }
+  return [x0, y0, x1, y1];
 }
 
 function ringBox(r: Ring): [number, number, number, number] {

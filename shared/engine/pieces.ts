@@ -29,6 +29,7 @@ import type { Finding, Piece, Polygon2, ResolvedDesign, ResolvedFamily, Resolved
 import { type Mat2, type PlaneOrbit, planeOrbit } from './orbits.js';
 import {
   type CongruenceKey,
+  bounds,
   congruenceKey,
   congruent,
   locateInPolygon,
@@ -38,6 +39,7 @@ import {
   unionPolygons,
 } from './polygons.js';
 import { CHORD_TOL } from './svg-path.js';
+import { LENGTH_TOL } from './tolerance.js';
 
 /** What {@link buildPieces} returns. */
 export interface PieceBuild {
@@ -102,9 +104,11 @@ function buildMotif(orbit: PlaneOrbit, family: ResolvedFamily, motif: ResolvedMo
   let regions: Polygon2[];
   let members: number[][];
   let unionFailed = false;
-  if (distinct.length === 1) {
-    regions = [distinct[0].polygon];
-    members = [[0]];
+  if (distinct.length === 1 || boxesApart(distinct.map((d) => d.polygon))) {
+    // Images whose boxes are apart neither overlap nor touch: each is its own region, exactly
+    // what the union would return, without its cost.
+    regions = distinct.map((d) => d.polygon);
+    members = distinct.map((_, j) => [j]);
   } else {
     const u = unionPolygons(distinct.map((d) => d.polygon));
     if (u.ok && u.regions.length > 0) {
@@ -188,6 +192,20 @@ function buildMotif(orbit: PlaneOrbit, family: ResolvedFamily, motif: ResolvedMo
     });
   }
   return { key, pieces, regions, plain, regionOf, findings, keys: regions.map(() => undefined) };
+}
+
+/** True when the bounding boxes of the polygons are pairwise more than 2 × LENGTH_TOL apart. */
+function boxesApart(polys: readonly Polygon2[]): boolean {
+  const boxes = polys.map((p) => bounds([p.outer]));
+  const gap = 2 * LENGTH_TOL;
+  for (let i = 0; i < boxes.length; i++) {
+    const a = boxes[i];
+    for (let j = i + 1; j < boxes.length; j++) {
+      const b = boxes[j];
+      if (a[2] + gap >= b[0] && b[2] + gap >= a[0] && a[3] + gap >= b[1] && b[3] + gap >= a[1]) return false;
+    }
+  }
+  return true;
 }
 
 function listIds(ids: readonly string[], max = 12): string {
