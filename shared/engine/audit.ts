@@ -92,16 +92,46 @@ export type AuditDocumentResult = { ok: true; report: FullAuditReport } | { ok: 
 
 /**
  * Validates a design document (parsed JSON) and audits it. Invalid input gives the issues of
- * {@link parseDesign} (each naming the field path) and no partial report. Never throws.
+ * {@link parseDesign} (each naming the field path), then those of {@link optionIssues} for the
+ * caller's options, and no partial report. Never throws.
  */
 export function auditDocument(json: unknown, options: AuditOptions = {}): AuditDocumentResult {
   const parsed = parseDesign(json);
   if (!parsed.ok) return { ok: false, errors: parsed.errors };
+  const bad = optionIssues(options);
+  if (bad.length) return { ok: false, errors: bad };
   try {
     return { ok: true, report: audit(parsed.design, options) };
   } catch (e) {
     return { ok: false, errors: [{ path: '', message: `the design could not be audited (${e instanceof Error ? e.message : String(e)})` }] };
   }
+}
+
+const isNum = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+
+/**
+ * Problems with audit options given by a caller (command line, server), with the same limits as
+ * the design's `constraints` (design.ts): `sheet` two sizes above 0 and at most 10,000 mm,
+ * `maxSheets` a whole number from 1 to 1,000, `angleToleranceDeg` above 0 and at most 10,
+ * `minJointLength` from 0 to 1,000 mm. Each issue names the option (path `options.<name>`).
+ * Empty when every option given is usable; absent options are fine.
+ */
+export function optionIssues(options: AuditOptions): InputIssue[] {
+  const issues: InputIssue[] = [];
+  const { sheet, maxSheets, angleToleranceDeg: tol, minJointLength: minLen } = options;
+  if (sheet !== undefined && !(Array.isArray(sheet) && sheet.length === 2 && sheet.every((v) => isNum(v) && v > 0 && v <= 10000))) {
+    issues.push({ path: 'options.sheet', message: 'must be two sizes in millimetres above 0 and at most 10000, such as 600 × 400' });
+  }
+  if (maxSheets !== undefined && !(Number.isInteger(maxSheets) && maxSheets >= 1 && maxSheets <= 1000)) {
+    issues.push({ path: 'options.maxSheets', message: 'must be a whole number of sheets from 1 to 1000' });
+  }
+  if (tol !== undefined && !(isNum(tol) && tol > 0 && tol <= 10)) {
+    issues.push({ path: 'options.angleToleranceDeg', message: 'must be a number of degrees above 0 and at most 10' });
+  }
+  if (minLen !== undefined && !(isNum(minLen) && minLen >= 0 && minLen <= 1000)) {
+    issues.push({ path: 'options.minJointLength', message: 'must be a length in millimetres from 0 to 1000' });
+  }
+  return issues;
 }
 
 /** An auditor that keeps work between calls; see {@link createAuditor}. */

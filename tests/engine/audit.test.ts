@@ -200,6 +200,14 @@ describe('auditDocument', () => {
     if (!r.ok) expect(r.errors.some((e) => e.path.startsWith('families[0]'))).toBe(true);
   });
 
+  it('when an option is unusable: an issue naming the option, no report', () => {
+    const doc = base({ families: [{ id: 'a', normal: [0, 0, 1], offset: 0 }], motifs: [{ id: 'm', family: 'a', outline: square(10) }] });
+    const r = auditDocument(doc, { angleToleranceDeg: Number.NaN, sheet: [600, -1], maxSheets: 0.5, minJointLength: -2 });
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.errors.map((e) => e.path)).toEqual(['options.sheet', 'options.maxSheets', 'options.angleToleranceDeg', 'options.minJointLength']);
+    expect(auditDocument(doc, { angleToleranceDeg: 1, sheet: [600, 400], maxSheets: 2, minJointLength: 0 }).ok).toBe(true);
+  });
+
   it('when the document is valid: the report', () => {
     const r = auditDocument(base({ families: [{ id: 'a', normal: [0, 0, 1], offset: 0 }], motifs: [{ id: 'm', family: 'a', outline: square(10) }] }));
     expect(r.ok && r.report.pieces).toBe(1);
