@@ -80,7 +80,8 @@ export interface FullAuditReport extends AuditReport {
 
 /**
  * Audits a validated design (FORMAT.md §5). Never throws for a design that {@link parseDesign}
- * accepted; an empty design (no motifs) gives 0 pieces, 0 components and ok = true. Equal to
+ * accepted; an empty design (no motifs) gives 0 pieces, 0 components, ok = true and, when a sheet
+ * size is known, `sheets` with 0 sheets (FORMAT.md §5: present whenever a sheet size is known). Equal to
  * `createAuditor().audit(design, options)`, which is the same computation with a cache.
  */
 export function audit(design: ResolvedDesign, options: AuditOptions = {}): FullAuditReport {
@@ -353,7 +354,7 @@ export function assembleReport(parts: ReportParts): FullAuditReport {
     ...parts.pieceFindings,
   ];
   let sheets: AuditReport['sheets'];
-  if (limits.nesting && limits.sheet && pieces.length > 0) {
+  if (limits.nesting && limits.sheet) {
     const result = estimateSheets(pieces, parts.templates, {
       sheet: limits.sheet,
       kerf: design.material.kerf,

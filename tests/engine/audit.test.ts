@@ -181,6 +181,11 @@ describe('audit', () => {
     expect(r.components).toBe(0);
     expect(r.ok).toBe(true);
   });
+
+  it('when there are no motifs but a sheet size: sheets is present, 0 sheets (FORMAT.md §5)', () => {
+    const r = audit(design(base({ families: [{ id: 'a', normal: [0, 0, 1], offset: 0 }], motifs: [], constraints: { sheet: [600, 400] } })));
+    expect(r.sheets).toEqual({ size: [600, 400], count: 0, utilization: 0 });
+  });
 });
 
 describe('effectiveLimits', () => {
