@@ -1,9 +1,11 @@
 import { useQuery, type QueryClient } from '@tanstack/react-query';
+import { lazy, Suspense } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { AuditStateBadge } from '../../components/ui/audit-state-badge.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { QueryView } from '../../components/ui/query-view.js';
+import { Spinner } from '../../components/ui/spinner.js';
 import { useMe } from '../../features/auth/api/get-me.js';
 import { briefQueryOptions } from '../../features/briefs/api/get-brief.js';
 import { auditPollInterval } from '../../features/revisions/api/audit-polling.js';
@@ -18,6 +20,9 @@ import { studioQueryOptions, useStudio } from '../../features/studios/api/get-st
 import { formatDateTime } from '../../lib/format.js';
 import { useDocumentTitle } from '../../lib/use-document-title.js';
 import { parseIdParam } from './route-params.js';
+
+// three.js and the viewer load only when a revision's model is shown.
+const ModelViewer = lazy(() => import('../../features/viewer/components/model-viewer.js'));
 
 export function makeLoader(queryClient: QueryClient) {
   return async ({ params }: LoaderFunctionArgs) => {
@@ -82,6 +87,17 @@ export function Component() {
             ) : null}
           </div>
         ) : null}
+      </Card>
+
+      <Card aria-labelledby="model-heading">
+        <CardHeader id="model-heading" title="Model" description="Every piece as a slab of the material, coloured by family, with the audit's joints." />
+        {report ? (
+          <Suspense fallback={<Spinner label="Loading the 3-D viewer…" />}>
+            <ModelViewer design={revision.design} joints={report.joints} />
+          </Suspense>
+        ) : (
+          <p className="text-sm text-ink-soft">{audit.state === 'failed' ? 'The model is shown once an audit succeeds.' : 'The model appears when the audit is done.'}</p>
+        )}
       </Card>
 
       {report ? (

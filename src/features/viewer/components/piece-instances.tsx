@@ -1,0 +1,96 @@
+import { useThree, type ThreeEvent } from '@react-three/fiber';
+import { useLayoutEffect, useMemo, useRef } from 'react';
+import { BufferAttribute, BufferGeometry, Color, type InstancedMesh, Matrix4, MeshStandardMaterial } from 'three';
+import type { SceneMesh } from '../../../../shared/engine/scene.js';
+import type { Vec3 } from '../../../../shared/engine/vec.js';
+import { HOVER, SELECTED, familyColour } from '../palette.js';
+
+export interface PieceInstancesProps {
+  mesh: SceneMesh;
+  center: Vec3;
+  /** Exploded-view push, in millimetres, along each piece's centroid direction. */
+  explode: number;
+  hovered: string | null;
+  selected: string | null;
+  onHover(piece: string | null): void;
+  onSelect(piece: string): void;
+}
+
+/** One template's slab drawn once for all its pieces (one draw call). */
+export function PieceInstances({ mesh, center, explode, hovered, selected, onHover, onSelect }: PieceInstancesProps) {
+  const ref = useRef<InstancedMesh>(null);
+  const invalidate = useThree((s) => s.invalidate);
+  const geometry = useMemo(() => {
+    const g = new BufferGeometry();
+    g.setAttribute('position', new BufferAttribute(mesh.geometry.positions, 3));
+    g.setAttribute('normal', new BufferAttribute(mesh.geometry.normals, 3));
+    g.setIndex(new BufferAttribute(mesh.geometry.indices, 1));
+    g.computeBoundingSphere();
+    return g;
+  }, [mesh]);
+  const material = useMemo(() => new MeshStandardMaterial({ roughness: 0.85, metalness: 0, flatShading: false }), []);
+  useLayoutEffect(() => () => geometry.dispose(), [geometry]);
+  useLayoutEffect(() => () => material.dispose(), [material]);
+  // Scratch objects, allocated once per mesh component.
+  const scratch = useMemo(() => ({ m: new Matrix4(), t: new Matrix4(), c: new Color(), hover: new Color(HOVER) }), []);
+  const pushes = useMemo(
+    () =>
+      mesh.instances.map((inst) => {
+        const d = [inst.centroid[0] - center[0], inst.centroid[1] - center[1], inst.centroid[2] - center[2]];
+        const len = Math.hypot(d[0], d[1], d[2]);
+        return len > 1e-9 ? [d[0] / len, d[1] / len, d[2] / len] : [0, 0, 0];
+      }),
+    [mesh, center],
+  );
+
+  useLayoutEffect(() => {
+    const im = ref.current;
+    if (!im) return;
+    const { m, t } = scratch;
+    mesh.instances.forEach((inst, i) => {
+      m.fromArray(inst.matrix);
+      const p = pushes[i];
+      t.makeTranslation(p[0] * explode, p[1] * explode, p[2] * explode);
+      m.premultiply(t);
+      im.setMatrixAt(i, m);
+    });
+    im.instanceMatrix.needsUpdate = true;
+    im.computeBoundingSphere();
+    im.computeBoundingBox();
+    invalidate();
+  }, [mesh, pushes, explode, scratch, invalidate]);
+
+  useLayoutEffect(() => {
+    const im = ref.current;
+    if (!im) return;
+    const { c, hover } = scratch;
+    mesh.instances.forEach((inst, i) => {
+      c.set(inst.piece === selected ? SELECTED : familyColour(inst.family));
+      if (inst.piece === hovered && inst.piece !== selected) c.lerp(hover, 0.55);
+      im.setColorAt(i, c);
+    });
+    if (im.instanceColor) im.instanceColor.needsUpdate = true;
+    invalidate();
+  }, [mesh, hovered, selected, scratch, invalidate]);
+
+  const pieceAt = (e: ThreeEvent<PointerEvent | MouseEvent>) => (e.instanceId === undefined ? null : (mesh.instances[e.instanceId]?.piece ?? null));
+
+  return (
+    <instancedMesh
+      ref={ref}
+      args={[geometry, material, mesh.instances.length]}
+      frustumCulled={false}
+      onPointerMove={(e) => {
+        e.stopPropagation();
+        const p = pieceAt(e);
+        if (p !== hovered) onHover(p);
+      }}
+      onPointerOut={() => onHover(null)}
+      onClick={(e) => {
+        e.stopPropagation();
+        const p = pieceAt(e);
+        if (p) onSelect(p);
+      }}
+    />
+  );
+}

@@ -1,0 +1,38 @@
+// The viewer's own colours. Family colours follow the usual principles for colour-blind
+// legibility (common practice, no source): hues spread over blue / orange / yellow / purple axes
+// rather than red against green, and every neighbour also differs in lightness, so the families
+// still separate in greyscale. Warm, earthy values to sit on the paper background.
+export const FAMILY_COLOURS = ['#c8733a', '#3d78a3', '#d8b043', '#2e8470', '#9c5a8c', '#7a6448'] as const;
+
+export const PAPER = '#f4efe4';
+export const INK = '#1f2a33';
+export const HOVER = '#f2e6c2';
+export const SELECTED = '#1b5e73';
+export const PROBLEM = '#b3261e';
+
+export function familyColour(index: number): string {
+  return FAMILY_COLOURS[((index % FAMILY_COLOURS.length) + FAMILY_COLOURS.length) % FAMILY_COLOURS.length];
+}
+
+/** Marker shapes of the joint overlay: the shape carries the kind, colour only repeats it. */
+export type MarkerShape = 'square' | 'triangle' | 'cross' | 'circle' | 'bar';
+
+export interface JointStyle {
+  readonly kind: string;
+  readonly label: string;
+  readonly shape: MarkerShape;
+  readonly shapeLabel: string;
+  readonly colour: string;
+}
+
+export const JOINT_STYLES: readonly JointStyle[] = [
+  { kind: 'corner', label: 'Corner', shape: 'square', shapeLabel: 'cube', colour: '#2a3640' },
+  { kind: 'mortise-and-tenon', label: 'Mortise and tenon', shape: 'triangle', shapeLabel: 'pyramid', colour: '#1b5e73' },
+  { kind: 'cross-lap', label: 'Cross-lap', shape: 'cross', shapeLabel: 'cross', colour: '#4d6b1f' },
+  { kind: 'through-slot', label: 'Through-slot', shape: 'circle', shapeLabel: 'ball', colour: '#6a4c93' },
+  { kind: 'locked-crossing', label: 'Locked crossing', shape: 'bar', shapeLabel: 'bar across the line', colour: PROBLEM },
+];
+
+export function jointStyle(kind: string): JointStyle | undefined {
+  return JOINT_STYLES.find((s) => s.kind === kind);
+}
