@@ -574,7 +574,9 @@ function slotFindings(pieces: readonly Piece[], joints: readonly Joint[], t: num
     }
     if (verdict.near.length > 0) {
       const items = verdict.near.map(
-        (n) => `the ${slotName(slots[n.slot])} is ${mm(n.distance)} mm from ${n.ring < 0 ? 'the outline' : `hole ${n.ring + 1}`}`,
+        (n) =>
+          // Below 0.05 mm the rounded figure would read "0 mm from": say what it means instead.
+          `the ${slotName(slots[n.slot])} ${n.distance < 0.05 ? 'reaches' : `is ${mm(n.distance)} mm from`} ${n.ring < 0 ? 'the outline' : `hole ${n.ring + 1}`}`,
       );
       findings.push({
         code: 'slot-near-edge',

@@ -160,6 +160,15 @@ describe('checkFabrication: slot-near-edge', () => {
     expect(f[0].message).toContain('is 1 mm from hole 1');
   });
 
+  it('when a closed slot reaches the edge, says so rather than "0 mm"', () => {
+    // Centre line at y = 1.5, 3 mm wide: the slot spans y ∈ [0, 3] and touches the bottom edge.
+    const j = slotJoint('rib-01', 'cap-03', 'through-slot', [20, 1.5], [80, 1.5]);
+    const f = checkFabrication([plate], [j], MATERIAL).filter((x) => x.code === 'slot-near-edge');
+    expect(f.length).toBe(1);
+    expect(f[0].message).toContain('(60 mm long) reaches the outline');
+    expect(f[0].message).not.toContain(' 0 mm from');
+  });
+
   it('when a closed slot keeps a thickness of material all round, says nothing', () => {
     expect(codes([plate], [slotJoint('rib-01', 'cap-03', 'through-slot', [20, 10], [80, 10])])).toEqual([]);
   });
