@@ -84,7 +84,9 @@ function invTimes(m: Mat2, n: Mat2): Mat2 {
 function motifKey(group: RotationGroup, family: ResolvedFamily, motif: ResolvedMotif): string {
   const p = motif.polygon;
   const ring = (r: readonly (readonly [number, number])[]) => r.map((q) => `${q[0]},${q[1]}`).join(';');
-  return `${group.name}|${family.normal.join(',')}|${family.offset}|${motif.id}|${ring(p.outer)}|${p.holes.map(ring).join('|')}`;
+  // The family id is in the key because every piece carries it (a renamed family must not
+  // leave pieces naming the old one).
+  return `${group.name}|${family.id}|${family.normal.join(',')}|${family.offset}|${motif.id}|${ring(p.outer)}|${p.holes.map(ring).join('|')}`;
 }
 
 function buildMotif(orbit: PlaneOrbit, family: ResolvedFamily, motif: ResolvedMotif, key: string): MotifBuild {
@@ -214,7 +216,7 @@ function listIds(ids: readonly string[], max = 12): string {
 
 /**
  * An incremental piece builder: `build(design)` gives the same answer as {@link buildPieces}, but
- * reuses the pieces of every motif whose inputs (group, family normal and offset, motif id and
+ * reuses the pieces of every motif whose inputs (group, family id, normal and offset, motif id and
  * polygon) are unchanged since the previous call, so editing one motif rebuilds only its pieces.
  * Templates are regrouped on every call (cheap: one congruence test per distinct region shape).
  * `stats` counts motifs built and reused by the last call.

@@ -256,6 +256,16 @@ describe('createPieceBuilder', () => {
     expect(again.templates).toEqual(fresh.templates);
     expectClose(polygonArea(again.pieces[0].polygon), 88 * 20 - 40, 1e-9);
   });
+  it('rebuilds a motif when its family is renamed, so its pieces name the new family', () => {
+    const d = fixture('o-cube-plates');
+    const builder = createPieceBuilder();
+    builder.build(d);
+    const id = `${d.families[0].id}-renamed`;
+    const renamed: ResolvedDesign = { ...d, families: [{ ...d.families[0], id }], motifs: d.motifs.map((m) => ({ ...m, family: id })) };
+    const again = builder.build(renamed);
+    expect(builder.stats).toEqual({ built: 1, reused: 0 });
+    expect(new Set(again.pieces.map((p) => p.family))).toEqual(new Set([id]));
+  });
   it('rebuilds a motif when its family offset changes', () => {
     const d = fixture('o-cube-plates');
     const builder = createPieceBuilder();
