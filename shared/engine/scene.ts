@@ -49,8 +49,13 @@ export interface SceneInstance {
   readonly family: number;
   /** Column-major 4 × 4 matrix from the geometry's local frame to the world. */
   readonly matrix: Float64Array;
-  /** Area centroid of the piece in the world (the exploded view pushes along it). */
+  /** Area centroid of the piece in the world. */
   readonly centroid: Vec3;
+  /**
+   * Unit direction from the scene's centre to the centroid, along which the exploded view pushes
+   * the piece; [0, 0, 0] for a piece centred on the scene's centre (it stays put).
+   */
+  readonly explode: Vec3;
 }
 
 /** One slab geometry and the pieces drawn with it. */
@@ -348,8 +353,8 @@ export function buildScene(
   const familyIndex = new Map(familyIds.map((id, i) => [id, i]));
   const byId = new Map(build.pieces.map((p) => [p.id, p]));
   const t = design.material.thickness;
-  const meshes: SceneMesh[] = [];
-  const instanceOf = (piece: Piece, r: Rigid2): SceneInstance => {
+  const raw: { template: number; outline: Polygon2; geometry: SlabGeometry; instances: Omit<SceneInstance, 'explode'>[] }[] = [];
+  const instanceOf = (piece: Piece, r: Rigid2): Omit<SceneInstance, 'explode'> => {
     const c = centroid2(piece.polygon);
     return {
       piece: piece.id,
@@ -363,17 +368,17 @@ export function buildScene(
   for (const tpl of build.templates) {
     const rep = byId.get(tpl.representative);
     if (!rep) continue;
-    const instances: SceneInstance[] = [];
+    const instances: Omit<SceneInstance, 'explode'>[] = [];
     for (const id of tpl.pieces) {
       const piece = byId.get(id);
       if (!piece) continue;
       const r = piece === rep ? IDENTITY_RIGID : congruenceMap(rep.polygon, piece.polygon, PLACEMENT_TOL, hintMap(rep, piece));
       if (r) instances.push(instanceOf(piece, r));
-      else meshes.push({ template: tpl.index, outline: piece.polygon, geometry: slabGeometry(piece.polygon, t), instances: [instanceOf(piece, IDENTITY_RIGID)] });
+      else raw.push({ template: tpl.index, outline: piece.polygon, geometry: slabGeometry(piece.polygon, t), instances: [instanceOf(piece, IDENTITY_RIGID)] });
     }
-    meshes.push({ template: tpl.index, outline: rep.polygon, geometry: slabGeometry(rep.polygon, t), instances });
+    raw.push({ template: tpl.index, outline: rep.polygon, geometry: slabGeometry(rep.polygon, t), instances });
   }
-  meshes.sort((a, b) => a.template - b.template);
+  raw.sort((a, b) => a.template - b.template);
   // Bounding sphere: centre of the box of every outline vertex, radius to the farthest vertex.
   const lo = [Infinity, Infinity, Infinity];
   const hi = [-Infinity, -Infinity, -Infinity];
@@ -392,6 +397,14 @@ export function buildScene(
   let radius = 0;
   for (const w of pts) radius = Math.max(radius, Math.hypot(w[0] - center[0], w[1] - center[1], w[2] - center[2]));
   if (pts.length) radius += t;
+  const meshes: SceneMesh[] = raw.map((m) => ({
+    ...m,
+    instances: m.instances.map((inst) => {
+      const d: Vec3 = [inst.centroid[0] - center[0], inst.centroid[1] - center[1], inst.centroid[2] - center[2]];
+      const len = Math.hypot(d[0], d[1], d[2]);
+      return { ...inst, explode: len > 1e-9 * Math.max(1, radius) ? [d[0] / len, d[1] / len, d[2] / len] : [0, 0, 0] };
+    }),
+  }));
   const sceneJoints: SceneJoint[] = joints.map((j, index) => ({
     index,
     a: j.a,

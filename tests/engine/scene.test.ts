@@ -160,6 +160,20 @@ describe('buildScene', () => {
     });
   });
 
+  it('when exploded, each piece moves along the unit direction from the centre to its centroid; the centred deck stays put', () => {
+    const d = fixture('d4-fins-deck');
+    const scene = buildScene(d, buildPieces(d));
+    const all = scene.meshes.flatMap((m) => m.instances);
+    const deck = all.filter((i) => i.motif === 'deck');
+    expect(deck.length).toBeGreaterThan(0);
+    for (const i of deck) expect(i.explode).toEqual([0, 0, 0]);
+    for (const i of all.filter((x) => x.motif === 'fin')) {
+      expectClose(Math.hypot(...i.explode), 1, 1e-12, 'unit');
+      const c = i.centroid.map((v, k) => v - scene.center[k]);
+      expectClose(i.explode[0] * c[0] + i.explode[1] * c[1] + i.explode[2] * c[2], Math.hypot(c[0], c[1], c[2]), 1e-9, 'along the centroid');
+    }
+  });
+
   it('when a stored joint lacks its end points it is left out', () => {
     expect(usableJoints([{ a: 'x', b: 'y', kind: 'corner', orthogonal: true }, null, { a: 'x', b: 'y', kind: 'corner', orthogonal: true, from: [0, 0, 0], to: [1, 0, 0] }])).toHaveLength(1);
   });

@@ -2,6 +2,7 @@
 // legibility (common practice, no source): hues spread over blue / orange / yellow / purple axes
 // rather than red against green, and every neighbour also differs in lightness, so the families
 // still separate in greyscale. Warm, earthy values to sit on the paper background.
+// Joint markers use ink, near-white and pale tints instead, so they stand out on every family.
 export const FAMILY_COLOURS = ['#c8733a', '#3d78a3', '#d8b043', '#2e8470', '#9c5a8c', '#7a6448'] as const;
 
 export const PAPER = '#f4efe4';
@@ -26,10 +27,10 @@ export interface JointStyle {
 }
 
 export const JOINT_STYLES: readonly JointStyle[] = [
-  { kind: 'corner', label: 'Corner', shape: 'square', shapeLabel: 'cube', colour: '#2a3640' },
-  { kind: 'mortise-and-tenon', label: 'Mortise and tenon', shape: 'triangle', shapeLabel: 'pyramid', colour: '#1b5e73' },
-  { kind: 'cross-lap', label: 'Cross-lap', shape: 'cross', shapeLabel: 'cross', colour: '#4d6b1f' },
-  { kind: 'through-slot', label: 'Through-slot', shape: 'circle', shapeLabel: 'ball', colour: '#6a4c93' },
+  { kind: 'corner', label: 'Corner', shape: 'square', shapeLabel: 'cube', colour: '#1f2a33' },
+  { kind: 'mortise-and-tenon', label: 'Mortise and tenon', shape: 'triangle', shapeLabel: 'pyramid', colour: '#fffaf0' },
+  { kind: 'cross-lap', label: 'Cross-lap', shape: 'cross', shapeLabel: 'cross', colour: '#9fd6e3' },
+  { kind: 'through-slot', label: 'Through-slot', shape: 'circle', shapeLabel: 'ball', colour: '#d9c2f0' },
   { kind: 'locked-crossing', label: 'Locked crossing', shape: 'bar', shapeLabel: 'bar across the line', colour: PROBLEM },
 ];
 

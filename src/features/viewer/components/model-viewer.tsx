@@ -186,7 +186,6 @@ function ViewerBody({ scene }: { scene: Scene }) {
               <PieceInstances
                 key={`${mesh.template}-${i}`}
                 mesh={mesh}
-                center={scene.center}
                 explode={explodeMm}
                 hovered={hovered}
                 selected={selected}

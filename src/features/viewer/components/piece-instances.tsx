@@ -2,12 +2,10 @@ import { useThree, type ThreeEvent } from '@react-three/fiber';
 import { useLayoutEffect, useMemo, useRef } from 'react';
 import { BufferAttribute, BufferGeometry, Color, type InstancedMesh, Matrix4, MeshStandardMaterial } from 'three';
 import type { SceneMesh } from '../../../../shared/engine/scene.js';
-import type { Vec3 } from '../../../../shared/engine/vec.js';
 import { HOVER, SELECTED, familyColour } from '../palette.js';
 
 export interface PieceInstancesProps {
   mesh: SceneMesh;
-  center: Vec3;
   /** Exploded-view push, in millimetres, along each piece's centroid direction. */
   explode: number;
   hovered: string | null;
@@ -17,7 +15,7 @@ export interface PieceInstancesProps {
 }
 
 /** One template's slab drawn once for all its pieces (one draw call). */
-export function PieceInstances({ mesh, center, explode, hovered, selected, onHover, onSelect }: PieceInstancesProps) {
+export function PieceInstances({ mesh, explode, hovered, selected, onHover, onSelect }: PieceInstancesProps) {
   const ref = useRef<InstancedMesh>(null);
   const invalidate = useThree((s) => s.invalidate);
   const geometry = useMemo(() => {
@@ -33,23 +31,13 @@ export function PieceInstances({ mesh, center, explode, hovered, selected, onHov
   useLayoutEffect(() => () => material.dispose(), [material]);
   // Scratch objects, allocated once per mesh component.
   const scratch = useMemo(() => ({ m: new Matrix4(), t: new Matrix4(), c: new Color(), hover: new Color(HOVER) }), []);
-  const pushes = useMemo(
-    () =>
-      mesh.instances.map((inst) => {
-        const d = [inst.centroid[0] - center[0], inst.centroid[1] - center[1], inst.centroid[2] - center[2]];
-        const len = Math.hypot(d[0], d[1], d[2]);
-        return len > 1e-9 ? [d[0] / len, d[1] / len, d[2] / len] : [0, 0, 0];
-      }),
-    [mesh, center],
-  );
-
   useLayoutEffect(() => {
     const im = ref.current;
     if (!im) return;
     const { m, t } = scratch;
     mesh.instances.forEach((inst, i) => {
       m.fromArray(inst.matrix);
-      const p = pushes[i];
+      const p = inst.explode;
       t.makeTranslation(p[0] * explode, p[1] * explode, p[2] * explode);
       m.premultiply(t);
       im.setMatrixAt(i, m);
@@ -58,7 +46,7 @@ export function PieceInstances({ mesh, center, explode, hovered, selected, onHov
     im.computeBoundingSphere();
     im.computeBoundingBox();
     invalidate();
-  }, [mesh, pushes, explode, scratch, invalidate]);
+  }, [mesh, explode, scratch, invalidate]);
 
   useLayoutEffect(() => {
     const im = ref.current;

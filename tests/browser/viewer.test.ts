@@ -1,0 +1,89 @@
+/**
+ * The 3-D viewer on a revision page: a participant opens their latest seeded revision (the demo's
+ * keel lantern), the canvas draws the model (a screenshot of it is not just background), and a
+ * click in the middle of the model names a piece in the side panel.
+ */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { Jimp } from 'jimp';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { openBrowser, startApp, watchPage, type Browser, type RunningApp } from './support/app.js';
+import { signIn } from './support/pages.js';
+
+let app: RunningApp;
+let browser: Browser;
+
+beforeAll(async () => {
+  app = await startApp();
+  browser = await openBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await app?.stop();
+});
+
+/** Paper background of the viewer (src/features/viewer/palette.ts). */
+const PAPER = [0xf4, 0xef, 0xe4];
+
+it('a participant sees the model of their revision and a click names a piece', { timeout: 120_000 }, async () => {
+  const page = await browser.context.newPage();
+  const { problems } = watchPage(page);
+  await signIn(page, app.url, 'participant@example.org');
+
+  // Find the participant's latest revision through the API, as the page itself would.
+  const revisionId = await page.evaluate(async () => {
+    const get = async (url: string) => {
+      const r = await fetch(url);
+      if (!r.ok) throw new Error(`${url}: ${r.status}`);
+      return (await r.json()) as unknown;
+    };
+    const studios = (await get('/api/studios')) as { id: number }[];
+    for (const s of studios) {
+      const briefs = (await get(`/api/studios/${s.id}/briefs`)) as { mySubmission: { latestRevision: number | null } | null }[];
+      for (const b of briefs) if (b.mySubmission?.latestRevision) return b.mySubmission.latestRevision;
+    }
+    return null;
+  });
+  expect(revisionId, 'the participant has a seeded revision').not.toBeNull();
+
+  await page.goto(`${app.url}/revisions/${revisionId}`);
+  const viewer = page.getByTestId('model-viewer');
+  await viewer.waitFor({ timeout: 30_000 });
+  const canvas = viewer.locator('canvas');
+  await canvas.waitFor({ timeout: 30_000 });
+  // Let the demand frame loop draw (the probe writes the draw calls after each frame).
+  await expect.poll(() => viewer.getAttribute('data-draw-calls'), { timeout: 30_000 }).not.toBeNull();
+  await page.waitForTimeout(300);
+
+  const shot = await canvas.screenshot();
+  const dir = join(app.dir, '..', 'planewright-viewer-shots');
+  mkdirSync(dir, { recursive: true });
+  writeFileSync(join(dir, 'viewer.png'), shot);
+  const img = await Jimp.read(shot);
+  const { width, height, data } = img.bitmap;
+  let differing = 0;
+  for (let i = 0; i < width * height; i++) {
+    const d = Math.abs(data[4 * i] - PAPER[0]) + Math.abs(data[4 * i + 1] - PAPER[1]) + Math.abs(data[4 * i + 2] - PAPER[2]);
+    if (d > 24) differing++;
+  }
+  const share = differing / (width * height);
+  expect(share, `share of pixels that are not background: ${share}`).toBeGreaterThan(0.02);
+
+  const templates = Number(await viewer.getAttribute('data-templates'));
+  const calls = Number(await viewer.getAttribute('data-draw-calls'));
+  console.log(`viewer: ${await viewer.getAttribute('data-pieces')} pieces, ${templates} templates, ${calls} draw calls, ${(share * 100).toFixed(1)} % drawn`);
+  // One call per template plus the joint overlay (lines, at most 5 marker kinds, problem rings).
+  expect(calls).toBeGreaterThan(0);
+  expect(calls).toBeLessThanOrEqual(templates + 7);
+
+  const box = await canvas.boundingBox();
+  expect(box).not.toBeNull();
+  await page.mouse.click(box!.x + box!.width / 2, box!.y + box!.height / 2);
+  const id = page.getByTestId('piece-id');
+  await id.waitFor({ timeout: 10_000 });
+  const pieceId = (await id.innerText()).trim();
+  expect(pieceId).toMatch(/^[A-Za-z0-9_.-]+-\d{2,}$/);
+  await expect.poll(() => page.getByTestId('piece-panel').innerText()).toContain('Selected piece');
+  expect(problems).toEqual([]);
+});
