@@ -85,5 +85,21 @@ it('a participant sees the model of their revision and a click names a piece', {
   const pieceId = (await id.innerText()).trim();
   expect(pieceId).toMatch(/^[A-Za-z0-9_.-]+-\d{2,}$/);
   await expect.poll(() => page.getByTestId('piece-panel').innerText()).toContain('Selected piece');
+  const panel = await page.getByTestId('piece-panel').innerText();
+  expect(panel).toMatch(/Motif/);
+  expect(panel).toMatch(/Template\s+T\d+/);
+  expect(panel).toMatch(/Joints \(\d+\)/);
+
+  // The exploded view moves the pieces: the drawing changes.
+  await page.getByLabel('Exploded view').fill('1');
+  await page.waitForTimeout(300);
+  const exploded = await Jimp.read(await canvas.screenshot());
+  let changed = 0;
+  for (let i = 0; i < width * height; i++) {
+    const d = Math.abs(exploded.bitmap.data[4 * i] - data[4 * i]) + Math.abs(exploded.bitmap.data[4 * i + 1] - data[4 * i + 1]) + Math.abs(exploded.bitmap.data[4 * i + 2] - data[4 * i + 2]);
+    if (d > 24) changed++;
+  }
+  expect(changed / (width * height), 'share of pixels the exploded view changed').toBeGreaterThan(0.02);
+  await page.screenshot({ path: join(dir, 'page.png'), fullPage: false });
   expect(problems).toEqual([]);
 });

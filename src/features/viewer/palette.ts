@@ -8,7 +8,8 @@ export const FAMILY_COLOURS = ['#c8733a', '#3d78a3', '#d8b043', '#2e8470', '#9c5
 export const PAPER = '#f4efe4';
 export const INK = '#1f2a33';
 export const HOVER = '#f2e6c2';
-export const SELECTED = '#1b5e73';
+/** A selected piece turns pale paper-white: unlike every family colour, whatever its hue. */
+export const SELECTED = '#fbf3d5';
 export const PROBLEM = '#b3261e';
 
 export function familyColour(index: number): string {

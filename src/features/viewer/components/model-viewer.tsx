@@ -153,7 +153,7 @@ function ViewerBody({ scene }: { scene: Scene }) {
     return m;
   }, [scene]);
   const emphasis = useMemo(() => new Set(selected ? (jointsOf.get(selected) ?? []) : []), [selected, jointsOf]);
-  const explodeMm = explode * scene.radius * 0.6;
+  const explodeMm = explode * scene.radius * 0.4;
   const markerSize = Math.max(scene.thickness * 1.2, scene.radius * 0.012);
   const onHover = useCallback((p: string | null) => setHovered(p), []);
   const onSelect = useCallback((p: string) => setSelected(p), []);
@@ -193,7 +193,7 @@ function ViewerBody({ scene }: { scene: Scene }) {
                 onSelect={onSelect}
               />
             ))}
-            {showJoints && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} /> : null}
+            {showJoints && explode === 0 && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} /> : null}
             <OrbitControls makeDefault enableDamping={false} />
             <CameraRig scene={scene} fitKey={fitKey} />
             <RenderProbe target={frame} />
@@ -211,7 +211,9 @@ function ViewerBody({ scene }: { scene: Scene }) {
             <input type="checkbox" checked={showJoints} onChange={(e) => setShowJoints(e.target.checked)} />
             <span>Show joints</span>
           </label>
-          <span className="text-ink-soft">Drag to turn, scroll to zoom, right-drag to pan.</span>
+          <span className="text-ink-soft">
+            Drag to turn, scroll to zoom, right-drag to pan.{explode > 0 && showJoints ? ' Joints show when the pieces are together.' : ''}
+          </span>
         </div>
       </div>
       <aside aria-label="Piece details" className="space-y-4 text-sm">
@@ -300,7 +302,7 @@ function Legend({ scene, problemCount }: { scene: Scene; problemCount: number })
         <ul className="mt-1 space-y-0.5">
           {JOINT_STYLES.map((s) => (
             <li key={s.kind} className="flex items-center gap-2">
-              <span aria-hidden="true" className="inline-block size-3 rounded-sm" style={{ background: s.colour }} />
+              <span aria-hidden="true" className="inline-block size-3 rounded-sm border border-ink-faint" style={{ background: s.colour }} />
               <span>
                 {s.label}: {s.shapeLabel}
               </span>
