@@ -6,6 +6,7 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { Jimp } from 'jimp';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import { openBrowser, startApp, watchPage, type Browser, type RunningApp } from './support/app.js';
 import { signIn } from './support/pages.js';
@@ -23,16 +24,9 @@ afterAll(async () => {
   await app?.stop();
 });
 
-/** Paper background of the viewer (src/features/viewer/palette.ts). */
-const PAPER = [0xf4, 0xef, 0xe4];
-
-it('a participant sees the model of their revision and a click names a piece', { timeout: 120_000 }, async () => {
-  const page = await browser.context.newPage();
-  const { problems } = watchPage(page);
-  await signIn(page, app.url, 'participant@example.org');
-
-  // Find the participant's latest revision through the API, as the page itself would.
-  const revisionId = await page.evaluate(async () => {
+/** The participant's latest revision, found through the API from the page (as the app does). */
+async function latestRevision(page: Page): Promise<number | null> {
+  return page.evaluate(async () => {
     const get = async (url: string) => {
       const r = await fetch(url);
       if (!r.ok) throw new Error(`${url}: ${r.status}`);
@@ -45,7 +39,20 @@ it('a participant sees the model of their revision and a click names a piece', {
     }
     return null;
   });
+}
+
+/** Paper background of the viewer (src/features/viewer/palette.ts). */
+const PAPER = [0xf4, 0xef, 0xe4];
+
+it('a participant sees the model of their revision and a click names a piece', { timeout: 120_000 }, async () => {
+  const page = await browser.context.newPage();
+  const { problems } = watchPage(page);
+  await signIn(page, app.url, 'participant@example.org');
+
+  // Find the participant's latest revision through the API, as the page itself would.
+  const revisionId = await latestRevision(page);
   expect(revisionId, 'the participant has a seeded revision').not.toBeNull();
+
 
   await page.goto(`${app.url}/revisions/${revisionId}`);
   const viewer = page.getByTestId('model-viewer');
@@ -101,5 +108,29 @@ it('a participant sees the model of their revision and a click names a piece', {
   }
   expect(changed / (width * height), 'share of pixels the exploded view changed').toBeGreaterThan(0.02);
   await page.screenshot({ path: join(dir, 'page.png'), fullPage: false });
+  expect(problems).toEqual([]);
+});
+
+it('without WebGL the model section says so in a sentence and the rest of the page works', { timeout: 60_000 }, async () => {
+  const page = await browser.context.newPage();
+  const { problems } = watchPage(page);
+  // As in a browser with WebGL turned off: no WebGL context can be made.
+  await page.addInitScript({
+    content: `(() => {
+      const original = HTMLCanvasElement.prototype.getContext;
+      HTMLCanvasElement.prototype.getContext = function (kind, ...rest) {
+        return String(kind).startsWith('webgl') ? null : original.call(this, kind, ...rest);
+      };
+    })();`,
+  });
+  await browser.context.clearCookies();
+  await signIn(page, app.url, 'participant@example.org');
+  const revisionId = await latestRevision(page);
+  expect(revisionId).not.toBeNull();
+  await page.goto(`${app.url}/revisions/${revisionId}`);
+  const model = page.getByRole('region', { name: 'Model' });
+  await expect.poll(() => model.getByRole('alert').innerText(), { timeout: 30_000 }).toContain('WebGL');
+  expect(await page.getByTestId('model-viewer').count()).toBe(0);
+  await page.getByRole('heading', { name: 'Findings' }).waitFor();
   expect(problems).toEqual([]);
 });
