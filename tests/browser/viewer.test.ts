@@ -34,8 +34,13 @@ async function latestRevision(page: Page): Promise<number | null> {
     };
     const studios = (await get('/api/studios')) as { id: number }[];
     for (const s of studios) {
-      const briefs = (await get(`/api/studios/${s.id}/briefs`)) as { mySubmission: { latestRevision: number | null } | null }[];
-      for (const b of briefs) if (b.mySubmission?.latestRevision) return b.mySubmission.latestRevision;
+      const briefs = (await get(`/api/studios/${s.id}/briefs`)) as { mySubmission: { id: number } | null }[];
+      for (const b of briefs) {
+        if (!b.mySubmission) continue;
+        const sub = (await get(`/api/submissions/${b.mySubmission.id}`)) as { revisions: { id: number; number: number }[] };
+        const latest = [...sub.revisions].sort((x, y) => y.number - x.number)[0];
+        if (latest) return latest.id;
+      }
     }
     return null;
   });
