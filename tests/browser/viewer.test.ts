@@ -112,6 +112,18 @@ it('a participant sees the model of their revision and a click names a piece', {
     if (d > 24) changed++;
   }
   expect(changed / (width * height), 'share of pixels the exploded view changed').toBeGreaterThan(0.02);
+
+  // The cutting plane at mid-height takes away the upper half: the drawing changes again.
+  await page.getByLabel('Exploded view').fill('0');
+  await page.getByLabel('Cut through').check();
+  await page.waitForTimeout(300);
+  const cut = await Jimp.read(await canvas.screenshot());
+  let cutChanged = 0;
+  for (let i = 0; i < width * height; i++) {
+    const d = Math.abs(cut.bitmap.data[4 * i] - data[4 * i]) + Math.abs(cut.bitmap.data[4 * i + 1] - data[4 * i + 1]) + Math.abs(cut.bitmap.data[4 * i + 2] - data[4 * i + 2]);
+    if (d > 24) cutChanged++;
+  }
+  expect(cutChanged / (width * height), 'share of pixels the cutting plane changed').toBeGreaterThan(0.02);
   await page.screenshot({ path: join(dir, 'page.png'), fullPage: false });
   expect(problems).toEqual([]);
 });

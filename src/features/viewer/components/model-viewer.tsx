@@ -1,7 +1,7 @@
 import { OrbitControls } from '@react-three/drei';
 import { Canvas, useFrame, useThree } from '@react-three/fiber';
 import { Component as ReactComponent, type ReactNode, type RefObject, useCallback, useEffect, useMemo, useRef, useState } from 'react';
-import { PerspectiveCamera, Vector3 } from 'three';
+import { PerspectiveCamera, Plane, Vector3 } from 'three';
 import { parseDesign } from '../../../../shared/engine/design.js';
 import { type Scene, type SceneInstance, sceneOfDesign, usableJoints } from '../../../../shared/engine/scene.js';
 import { Button } from '../../../components/ui/button.js';
@@ -134,6 +134,8 @@ function ViewerBody({ scene }: { scene: Scene }) {
   const [explode, setExplode] = useState(0);
   const [showJoints, setShowJoints] = useState(true);
   const [fitKey, setFitKey] = useState(0);
+  const [cutOn, setCutOn] = useState(false);
+  const [cut, setCut] = useState(0);
   const frame = useRef<HTMLDivElement>(null);
 
   const instances = useMemo(() => {
@@ -153,6 +155,8 @@ function ViewerBody({ scene }: { scene: Scene }) {
     return m;
   }, [scene]);
   const emphasis = useMemo(() => new Set(selected ? (jointsOf.get(selected) ?? []) : []), [selected, jointsOf]);
+  // A horizontal cutting plane: everything above the chosen height is cut away.
+  const clip = useMemo(() => (cutOn ? new Plane(new Vector3(0, 0, -1), scene.center[2] + cut * scene.radius) : null), [cutOn, cut, scene]);
   const explodeMm = explode * scene.radius * 0.4;
   const markerSize = Math.max(scene.thickness * 1.2, scene.radius * 0.012);
   const onHover = useCallback((p: string | null) => setHovered(p), []);
@@ -176,6 +180,9 @@ function ViewerBody({ scene }: { scene: Scene }) {
             frameloop="demand"
             dpr={[1, 2]}
             camera={{ fov: 35, position: [0, -1, 0] }}
+            onCreated={({ gl }) => {
+              gl.localClippingEnabled = true;
+            }}
             onPointerMissed={() => setSelected(null)}
             aria-label={`3-D model: ${scene.pieceCount} pieces in ${scene.templateCount} templates`}
           >
@@ -187,13 +194,14 @@ function ViewerBody({ scene }: { scene: Scene }) {
                 key={`${mesh.template}-${i}`}
                 mesh={mesh}
                 explode={explodeMm}
+                clip={clip}
                 hovered={hovered}
                 selected={selected}
                 onHover={onHover}
                 onSelect={onSelect}
               />
             ))}
-            {showJoints && explode === 0 && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} /> : null}
+            {showJoints && explode === 0 && !cutOn && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} /> : null}
             <OrbitControls makeDefault enableDamping={false} />
             <CameraRig scene={scene} fitKey={fitKey} />
             <RenderProbe target={frame} />
@@ -208,11 +216,19 @@ function ViewerBody({ scene }: { scene: Scene }) {
             <input type="range" min={0} max={1} step={0.01} value={explode} onChange={(e) => setExplode(Number(e.target.value))} className="w-40 accent-[#1b5e73]" />
           </label>
           <label className="flex items-center gap-2">
+            <input type="checkbox" checked={cutOn} onChange={(e) => setCutOn(e.target.checked)} />
+            <span>Cut through</span>
+          </label>
+          <label className="flex items-center gap-2">
+            <span>Cut height</span>
+            <input type="range" min={-1} max={1} step={0.01} value={cut} disabled={!cutOn} onChange={(e) => setCut(Number(e.target.value))} className="w-32 accent-[#1b5e73]" />
+          </label>
+          <label className="flex items-center gap-2">
             <input type="checkbox" checked={showJoints} onChange={(e) => setShowJoints(e.target.checked)} />
             <span>Show joints</span>
           </label>
           <span className="text-ink-soft">
-            Drag to turn, scroll to zoom, right-drag to pan.{explode > 0 && showJoints ? ' Joints show when the pieces are together.' : ''}
+            Drag to turn, scroll to zoom, right-drag to pan.{(explode > 0 || cutOn) && showJoints ? ' Joints show when the pieces are together and uncut.' : ''}
           </span>
         </div>
       </div>

@@ -1,6 +1,6 @@
 import { useThree, type ThreeEvent } from '@react-three/fiber';
 import { useLayoutEffect, useMemo, useRef } from 'react';
-import { BufferAttribute, BufferGeometry, Color, type InstancedMesh, Matrix4, MeshStandardMaterial } from 'three';
+import { BufferAttribute, BufferGeometry, Color, DoubleSide, type InstancedMesh, Matrix4, MeshStandardMaterial, type Plane } from 'three';
 import type { SceneMesh } from '../../../../shared/engine/scene.js';
 import { HOVER, SELECTED, familyColour } from '../palette.js';
 
@@ -8,6 +8,8 @@ export interface PieceInstancesProps {
   mesh: SceneMesh;
   /** Exploded-view push, in millimetres, along each piece's centroid direction. */
   explode: number;
+  /** The cutting plane (the side its normal points to is cut away), or null. */
+  clip: Plane | null;
   hovered: string | null;
   selected: string | null;
   onHover(piece: string | null): void;
@@ -15,7 +17,7 @@ export interface PieceInstancesProps {
 }
 
 /** One template's slab drawn once for all its pieces (one draw call). */
-export function PieceInstances({ mesh, explode, hovered, selected, onHover, onSelect }: PieceInstancesProps) {
+export function PieceInstances({ mesh, explode, clip, hovered, selected, onHover, onSelect }: PieceInstancesProps) {
   const ref = useRef<InstancedMesh>(null);
   const invalidate = useThree((s) => s.invalidate);
   const geometry = useMemo(() => {
@@ -26,7 +28,13 @@ export function PieceInstances({ mesh, explode, hovered, selected, onHover, onSe
     g.computeBoundingSphere();
     return g;
   }, [mesh]);
-  const material = useMemo(() => new MeshStandardMaterial({ roughness: 0.85, metalness: 0, flatShading: false }), []);
+  // Both sides are drawn so a cut slab shows its inside instead of vanishing.
+  const material = useMemo(() => new MeshStandardMaterial({ roughness: 0.85, metalness: 0, side: DoubleSide }), []);
+  useLayoutEffect(() => {
+    material.clippingPlanes = clip ? [clip] : [];
+    material.needsUpdate = true;
+    invalidate();
+  }, [material, clip, invalidate]);
   useLayoutEffect(() => () => geometry.dispose(), [geometry]);
   useLayoutEffect(() => () => material.dispose(), [material]);
   // Scratch objects, allocated once per mesh component.
@@ -69,12 +77,15 @@ export function PieceInstances({ mesh, explode, hovered, selected, onHover, onSe
       args={[geometry, material, mesh.instances.length]}
       frustumCulled={false}
       onPointerMove={(e) => {
+        // Raycasts ignore clipping: a hit on the cut-away part passes on to what lies behind.
+        if (clip && clip.distanceToPoint(e.point) < 0) return;
         e.stopPropagation();
         const p = pieceAt(e);
         if (p !== hovered) onHover(p);
       }}
       onPointerOut={() => onHover(null)}
       onClick={(e) => {
+        if (clip && clip.distanceToPoint(e.point) < 0) return;
         e.stopPropagation();
         const p = pieceAt(e);
         if (p) onSelect(p);
