@@ -1,7 +1,8 @@
 /**
  * The 3-D viewer on a revision page: a participant opens their latest seeded revision (the demo's
- * keel lantern), the canvas draws the model (a screenshot of it is not just background), and a
- * click in the middle of the model names a piece in the side panel.
+ * keel lantern), the canvas draws the model (a screenshot of it is not just background), a
+ * click in the middle of the model names a piece in the side panel, and the exploded view and the
+ * cutting plane each change the drawing. Without WebGL the section says so in a sentence.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
