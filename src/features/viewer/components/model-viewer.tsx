@@ -184,6 +184,7 @@ function ViewerBody({ scene }: { scene: Scene }) {
               gl.localClippingEnabled = true;
             }}
             onPointerMissed={() => setSelected(null)}
+            role="img"
             aria-label={`3-D model: ${scene.pieceCount} pieces in ${scene.templateCount} templates`}
           >
             <color attach="background" args={[PAPER]} />
