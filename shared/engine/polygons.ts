@@ -542,6 +542,48 @@ function sameRing(a: Ring, b: Ring, tol: number): boolean {
   return false;
 }
 
+/** A rigid map of the plane: p ↦ m·p + (tx, ty); m orthogonal (det ±1). */
+export interface Rigid2 {
+  readonly m: Mat2;
+  readonly tx: number;
+  readonly ty: number;
+}
+
+/**
+ * The candidate rigid maps that could carry ring `A` onto ring `B` (both with at least two
+ * points): A's first edge is paired with every edge of B whose length matches within 2·`tol`, in
+ * B's direction (a rotation) and against it (a reflection, since a flat part can be turned over).
+ * Each candidate says which vertex `k` of B the point A[0] lands on and whether it mirrors, so a
+ * caller verifies the remaining vertices in order (A[i] ↦ B[k ± i]) or by any test of its own.
+ */
+export function* edgePairingMaps(A: Ring, B: Ring, tol: number): Generator<{ map: Rigid2; k: number; mirror: boolean }> {
+  const n = B.length;
+  const a0 = A[0];
+  const a1 = A[1];
+  const dx = a1[0] - a0[0];
+  const dy = a1[1] - a0[1];
+  const l2 = dx * dx + dy * dy;
+  const len = Math.sqrt(l2);
+  if (!(l2 > 0)) return;
+  for (let mirror = 0; mirror < 2; mirror++) {
+    for (let k = 0; k < n; k++) {
+      const q0 = B[k];
+      const q1 = B[mirror ? (k - 1 + n) % n : (k + 1) % n];
+      const ex = q1[0] - q0[0];
+      const ey = q1[1] - q0[1];
+      if (Math.abs(Math.hypot(ex, ey) - len) > 2 * tol) continue;
+      // Map x ↦ R·F·(x − a0) + q0, F = identity or the mirror y ↦ −y, R sends F·d to e.
+      const fdy = mirror ? -dy : dy;
+      const c = (dx * ex + fdy * ey) / l2;
+      const s = (dx * ey - fdy * ex) / l2;
+      const sy = mirror ? -1 : 1;
+      const m: Mat2 = [c, -s * sy, s, c * sy];
+      const map: Rigid2 = { m, tx: q0[0] - (m[0] * a0[0] + m[1] * a0[1]), ty: q0[1] - (m[2] * a0[0] + m[3] * a0[1]) };
+      yield { map, k, mirror: mirror === 1 };
+    }
+  }
+}
+
 /** Simplified shape data used by {@link congruent}; compute once per polygon and reuse. */
 export interface CongruenceKey {
   readonly polygon: Polygon2;
@@ -575,41 +617,20 @@ export function congruent(a: Polygon2 | CongruenceKey, b: Polygon2 | CongruenceK
   if (Math.abs(ka.area - kb.area) > 2 * t * (ka.perimeter + kb.perimeter)) return false;
   const A = pa.outer;
   const B = pb.outer;
-  const a0 = A[0];
-  const a1 = A[1];
-  const dx = a1[0] - a0[0];
-  const dy = a1[1] - a0[1];
-  const l2 = dx * dx + dy * dy;
-  const len = Math.sqrt(l2);
-  for (let mirror = 0; mirror < 2; mirror++) {
-    for (let k = 0; k < n; k++) {
-      const q0 = B[k];
-      const q1 = B[mirror ? (k - 1 + n) % n : (k + 1) % n];
-      const ex = q1[0] - q0[0];
-      const ey = q1[1] - q0[1];
-      if (Math.abs(Math.hypot(ex, ey) - len) > 2 * t) continue;
-      // Map x ↦ R·F·(x − a0) + q0, F = identity or the mirror y ↦ −y, R sends F·d to e.
-      const fdx = dx;
-      const fdy = mirror ? -dy : dy;
-      const c = (fdx * ex + fdy * ey) / l2;
-      const s = (fdx * ey - fdy * ex) / l2;
-      const sy = mirror ? -1 : 1;
-      const m: Mat2 = [c, -s * sy, s, c * sy];
-      const tx = q0[0] - (m[0] * a0[0] + m[1] * a0[1]);
-      const ty = q0[1] - (m[2] * a0[0] + m[3] * a0[1]);
-      let ok = true;
-      for (let i = 2; i < n && ok; i++) {
-        const p = A[i];
-        const q = B[mirror ? (k - i + n * 2) % n : (k + i) % n];
-        const x = m[0] * p[0] + m[1] * p[1] + tx;
-        const y = m[2] * p[0] + m[3] * p[1] + ty;
-        ok = Math.abs(x - q[0]) <= t && Math.abs(y - q[1]) <= t;
-      }
-      if (!ok) continue;
-      if (pa.holes.length === 0) return true;
-      const moved = transformPolygon({ outer: [], holes: pa.holes }, m, tx, ty);
-      if (samePolygon({ outer: [], holes: moved.holes }, { outer: [], holes: pb.holes }, t)) return true;
+  for (const { map, k, mirror } of edgePairingMaps(A, B, t)) {
+    const { m, tx, ty } = map;
+    let ok = true;
+    for (let i = 2; i < n && ok; i++) {
+      const p = A[i];
+      const q = B[mirror ? (k - i + n * 2) % n : (k + i) % n];
+      const x = m[0] * p[0] + m[1] * p[1] + tx;
+      const y = m[2] * p[0] + m[3] * p[1] + ty;
+      ok = Math.abs(x - q[0]) <= t && Math.abs(y - q[1]) <= t;
     }
+    if (!ok) continue;
+    if (pa.holes.length === 0) return true;
+    const moved = transformPolygon({ outer: [], holes: pa.holes }, m, tx, ty);
+    if (samePolygon({ outer: [], holes: moved.holes }, { outer: [], holes: pb.holes }, t)) return true;
   }
   return false;
 }

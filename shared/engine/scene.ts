@@ -20,7 +20,7 @@ import { toWorld } from './frames.js';
 import type { JointKind, Piece, Polygon2, Ring, ResolvedDesign, Template } from './model.js';
 import type { Mat2 } from './orbits.js';
 import { buildPieces } from './pieces.js';
-import { det2, nearlySamePolygon, normalizePolygon, removeCollinear, samePolygon, signedArea, transformPolygon } from './polygons.js';
+import { det2, edgePairingMaps, nearlySamePolygon, normalizePolygon, removeCollinear, samePolygon, signedArea, transformPolygon, type Rigid2 } from './polygons.js';
 import type { Vec2, Vec3 } from './vec.js';
 
 /** Vertices of a mapped representative must land this close (mm) on the piece's vertices. */
@@ -33,12 +33,7 @@ export interface SlabGeometry {
   readonly indices: Uint32Array;
 }
 
-/** A rigid map of the plane: p ↦ m·p + (tx, ty); m orthogonal (det ±1). */
-export interface Rigid2 {
-  readonly m: Mat2;
-  readonly tx: number;
-  readonly ty: number;
-}
+export type { Rigid2 };
 
 /** One instance of a template geometry: a piece placed in the world. */
 export interface SceneInstance {
@@ -220,28 +215,7 @@ export function congruenceMap(from: Polygon2, to: Polygon2, tol: number = PLACEM
   const B = normalizePolygon({ outer: removeCollinear(to.outer, t), holes: [] }).outer;
   const n = A.length;
   if (n < 3 || n !== B.length) return null;
-  const a0 = A[0];
-  const a1 = A[1];
-  const dx = a1[0] - a0[0];
-  const dy = a1[1] - a0[1];
-  const l2 = dx * dx + dy * dy;
-  const len = Math.sqrt(l2);
-  for (let mirror = 0; mirror < 2; mirror++) {
-    for (let k = 0; k < n; k++) {
-      const q0 = B[k];
-      const q1 = B[mirror ? (k - 1 + n) % n : (k + 1) % n];
-      const ex = q1[0] - q0[0];
-      const ey = q1[1] - q0[1];
-      if (Math.abs(Math.hypot(ex, ey) - len) > 2 * t) continue;
-      const fdy = mirror ? -dy : dy;
-      const c = (dx * ex + fdy * ey) / l2;
-      const s = (dx * ey - fdy * ex) / l2;
-      const sy = mirror ? -1 : 1;
-      const m: Mat2 = [c, -s * sy, s, c * sy];
-      const r: Rigid2 = { m, tx: q0[0] - (m[0] * a0[0] + m[1] * a0[1]), ty: q0[1] - (m[2] * a0[0] + m[3] * a0[1]) };
-      if (mapsOnto(from, to, r, t)) return r;
-    }
-  }
+  for (const { map } of edgePairingMaps(A, B, t)) if (mapsOnto(from, to, map, t)) return map;
   return null;
 }
 
