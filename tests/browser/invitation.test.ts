@@ -2,30 +2,19 @@
  * An instructor invites a new person; the e-mail arrives through the real SMTP sink and shows in
  * the admin's outbox; its link creates an account that lands in the studio with the invited role.
  */
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import { openBrowser, startApp, watchPage, type Browser, type RunningApp } from './support/app.js';
+import { expect, it } from 'vitest';
+import { useAppAndBrowser, watchPage } from './support/app.js';
 import { expectAccessible, signIn, signOut } from './support/pages.js';
 
 const STUDIO = 'Quillmarsh Lamp Studio';
 const INVITEE = 'wren.halloway@example.org';
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await app?.stop();
-});
+const session = useAppAndBrowser();
 
 it('an invitation goes out, appears in the outbox, and its link creates a critic in the studio', async () => {
-  const page = await browser.context.newPage();
+  const page = await session.browser.context.newPage();
   const { problems } = watchPage(page);
 
-  await signIn(page, app.url, 'instructor@example.org');
+  await signIn(page, session.app.url, 'instructor@example.org');
   await page.getByRole('link', { name: STUDIO }).first().click();
   const form = page.getByRole('form', { name: 'Invite someone' });
   await form.getByLabel('E-mail address').fill(INVITEE);
@@ -34,11 +23,11 @@ it('an invitation goes out, appears in the outbox, and its link creates a critic
   await page.getByText(INVITEE).first().waitFor();
   await signOut(page);
 
-  await signIn(page, app.url, 'admin@example.org');
-  await page.goto(`${app.url}/admin/outbox`);
+  await signIn(page, session.app.url, 'admin@example.org');
+  await page.goto(`${session.app.url}/admin/outbox`);
   await page.getByText(new RegExp(STUDIO)).first().click();
   const link = page.getByRole('link', { name: /\/invitations\// }).first();
-  const href = new URL((await link.getAttribute('href')) ?? '', app.url).toString();
+  const href = new URL((await link.getAttribute('href')) ?? '', session.app.url).toString();
   expect(href).toMatch(/\/invitations\/[A-Za-z0-9_-]{20,}$/);
   await expectAccessible(page, 'outbox message');
   await signOut(page);

@@ -2,28 +2,17 @@
  * Each demo role signs in and sees what it should, and not what it should not; every page
  * visited is checked with axe-core for serious or critical violations.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, startApp, watchPage, type Browser, type RunningApp } from './support/app.js';
+import { useAppAndBrowser, watchPage } from './support/app.js';
 import { expectAccessible, signIn } from './support/pages.js';
 
 const STUDIO = 'Quillmarsh Lamp Studio';
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await app?.stop();
-});
+const session = useAppAndBrowser();
 
 async function freshPage(): Promise<{ page: Page; problems: string[] }> {
-  await browser.context.clearCookies();
-  const page = await browser.context.newPage();
+  await session.browser.context.clearCookies();
+  const page = await session.browser.context.newPage();
   return { page, ...watchPage(page) };
 }
 
@@ -32,7 +21,7 @@ const nav = (page: Page) => page.getByRole('navigation', { name: 'Main' });
 describe('signed out', () => {
   it('when a visitor opens a page they are sent to sign in, which is accessible', async () => {
     const { page, problems } = await freshPage();
-    await page.goto(`${app.url}/`);
+    await page.goto(`${session.app.url}/`);
     await page.waitForURL(/\/sign-in/);
     await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toMatch(/sign in/i);
     await expectAccessible(page, 'sign-in');
@@ -50,7 +39,7 @@ describe('signed out', () => {
 describe('each demo role', () => {
   it('admin sees the admin pages and every studio', async () => {
     const { page, problems } = await freshPage();
-    await signIn(page, app.url, 'admin@example.org');
+    await signIn(page, session.app.url, 'admin@example.org');
     await expectAccessible(page, 'admin dashboard');
     for (const link of ['Users', 'Outbox']) await expect(nav(page).getByRole('link', { name: link }).count()).resolves.toBe(1);
     await nav(page).getByRole('link', { name: 'Users' }).click();
@@ -65,7 +54,7 @@ describe('each demo role', () => {
 
   it('instructor sees the studio with its members and the invite form', async () => {
     const { page, problems } = await freshPage();
-    await signIn(page, app.url, 'instructor@example.org');
+    await signIn(page, session.app.url, 'instructor@example.org');
     await expect(nav(page).getByRole('link', { name: 'Users' }).count()).resolves.toBe(0);
     await page.getByRole('link', { name: STUDIO }).first().click();
     await page.getByRole('heading', { name: 'Invite someone' }).waitFor();
@@ -78,7 +67,7 @@ describe('each demo role', () => {
   for (const role of ['critic', 'participant'] as const) {
     it(`${role} sees the studio and its members but cannot invite or manage`, async () => {
       const { page, problems } = await freshPage();
-      await signIn(page, app.url, `${role}@example.org`);
+      await signIn(page, session.app.url, `${role}@example.org`);
       await expect(nav(page).getByRole('link', { name: 'Users' }).count()).resolves.toBe(0);
       await page.getByRole('link', { name: STUDIO }).first().click();
       await page.getByRole('heading', { name: 'Members' }).waitFor();
@@ -93,11 +82,11 @@ describe('each demo role', () => {
 
   it('technician has no studio and no admin pages', async () => {
     const { page, problems } = await freshPage();
-    await signIn(page, app.url, 'technician@example.org');
+    await signIn(page, session.app.url, 'technician@example.org');
     await expect(page.getByRole('link', { name: STUDIO }).count()).resolves.toBe(0);
     await expect(nav(page).getByRole('link', { name: 'Users' }).count()).resolves.toBe(0);
     await expectAccessible(page, 'technician dashboard');
-    await page.goto(`${app.url}/admin/users`);
+    await page.goto(`${session.app.url}/admin/users`);
     await expect(page.getByRole('cell', { name: 'instructor@example.org' }).count()).resolves.toBe(0);
     await page.getByText(/admin/i).first().waitFor();
     await page.close();

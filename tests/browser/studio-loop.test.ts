@@ -11,8 +11,8 @@
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Locator, Page } from 'playwright-core';
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import { openBrowser, startApp, watchPage, type Browser, type RunningApp } from './support/app.js';
+import { expect, it } from 'vitest';
+import { useAppAndBrowser, watchPage } from './support/app.js';
 import { expectAccessible, signIn, signOut } from './support/pages.js';
 
 const STUDIO = 'Quillmarsh Lamp Studio';
@@ -22,18 +22,7 @@ const designs = fileURLToPath(new URL('../../server/seed/designs/', import.meta.
 const FAILING = join(designs, 'i-half-keels.json');
 const FIXED = join(designs, 'i-keel-lantern.json');
 
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await app?.stop();
-});
+const session = useAppAndBrowser();
 
 /** The text of each cell of a table row, in column order. */
 async function cellTexts(row: Locator): Promise<string[]> {
@@ -50,12 +39,12 @@ async function uploadAndWait(page: Page, file: string): Promise<void> {
 }
 
 it('a brief is published, a failing revision is fixed, and the instructor sees both', { timeout: 180_000 }, async () => {
-  const page = await browser.context.newPage();
+  const page = await session.browser.context.newPage();
   const { problems } = watchPage(page);
 
   // The instructor writes the brief: I only, the shell on the 3-fold planes, keels on the 2-fold.
-  await signIn(page, app.url, 'instructor@example.org');
-  await page.goto(`${app.url}/studios/1/briefs/new`);
+  await signIn(page, session.app.url, 'instructor@example.org');
+  await page.goto(`${session.app.url}/studios/1/briefs/new`);
   const editor = page.getByRole('form', { name: 'New brief' });
   await editor.getByLabel('Title').fill(BRIEF);
   await editor.getByLabel('Brief text (markdown)').fill('A hanging lantern under **I**: panels on the 3-fold planes, keels on the 2-fold planes.');
@@ -86,7 +75,7 @@ it('a brief is published, a failing revision is fixed, and the instructor sees b
   await signOut(page);
 
   // The participant finds the brief in the studio and uploads half keels: 20 loose clusters.
-  await signIn(page, app.url, PARTICIPANT.email);
+  await signIn(page, session.app.url, PARTICIPANT.email);
   await page.goto(briefUrl);
   await uploadAndWait(page, FAILING);
   await page.getByText('1 error to fix before the design can be cut').waitFor();
@@ -105,7 +94,7 @@ it('a brief is published, a failing revision is fixed, and the instructor sees b
   await signOut(page);
 
   // The instructor's table shows the submission at revision 2 with the lantern's figures.
-  await signIn(page, app.url, 'instructor@example.org');
+  await signIn(page, session.app.url, 'instructor@example.org');
   await page.goto(briefUrl);
   await page.getByRole('link', { name: 'Submissions' }).first().click();
   await page.waitForURL(/\/briefs\/\d+\/submissions$/);
@@ -123,7 +112,7 @@ it('a brief is published, a failing revision is fixed, and the instructor sees b
   // Both revisions are in the submission's history: 1 error and 20 groups, then none and one.
   const revisionHref = await row.getByRole('link', { name: `Revision 2 of ${PARTICIPANT.name}` }).getAttribute('href');
   expect(revisionHref).toMatch(/^\/revisions\/\d+$/);
-  await page.goto(`${app.url}${revisionHref}`);
+  await page.goto(`${session.app.url}${revisionHref}`);
   const history = page.getByRole('list', { name: 'Revision history' });
   const entries = history.getByRole('listitem').filter({ has: page.getByRole('link', { name: /^Revision \d+$/ }) });
   await entries.first().waitFor();
@@ -138,18 +127,18 @@ it('a brief is published, a failing revision is fixed, and the instructor sees b
 });
 
 it('the links out of the studio page, the submissions table and a revision page open their pages', { timeout: 120_000 }, async () => {
-  await browser.context.clearCookies();
-  const page = await browser.context.newPage();
+  await session.browser.context.clearCookies();
+  const page = await session.browser.context.newPage();
   const { problems } = watchPage(page);
   const heading = () => page.getByRole('heading', { level: 1 });
 
-  await signIn(page, app.url, 'instructor@example.org');
+  await signIn(page, session.app.url, 'instructor@example.org');
   await page.getByRole('link', { name: STUDIO }).first().click();
   await heading().filter({ hasText: STUDIO }).waitFor();
   await page.getByRole('link', { name: 'New brief' }).click();
   await heading().filter({ hasText: 'New brief' }).waitFor({ timeout: 15_000 });
 
-  await page.goto(`${app.url}/studios/1`);
+  await page.goto(`${session.app.url}/studios/1`);
   await page.getByRole('list', { name: 'Briefs' }).getByRole('link', { name: 'Icosahedral lantern', exact: true }).click();
   await heading().filter({ hasText: 'Icosahedral lantern' }).waitFor({ timeout: 15_000 });
 

@@ -8,22 +8,11 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { Jimp } from 'jimp';
 import type { Page } from 'playwright-core';
-import { afterAll, beforeAll, expect, it } from 'vitest';
-import { openBrowser, startApp, watchPage, type Browser, type RunningApp } from './support/app.js';
+import { expect, it } from 'vitest';
+import { useAppAndBrowser, watchPage } from './support/app.js';
 import { signIn } from './support/pages.js';
 
-let app: RunningApp;
-let browser: Browser;
-
-beforeAll(async () => {
-  app = await startApp();
-  browser = await openBrowser();
-});
-
-afterAll(async () => {
-  await browser?.close();
-  await app?.stop();
-});
+const session = useAppAndBrowser();
 
 /** The participant's latest revision, found through the API from the page (as the app does). */
 async function latestRevision(page: Page): Promise<number | null> {
@@ -51,16 +40,16 @@ async function latestRevision(page: Page): Promise<number | null> {
 const PAPER = [0xf4, 0xef, 0xe4];
 
 it('a participant sees the model of their revision and a click names a piece', { timeout: 120_000 }, async () => {
-  const page = await browser.context.newPage();
+  const page = await session.browser.context.newPage();
   const { problems } = watchPage(page);
-  await signIn(page, app.url, 'participant@example.org');
+  await signIn(page, session.app.url, 'participant@example.org');
 
   // Find the participant's latest revision through the API, as the page itself would.
   const revisionId = await latestRevision(page);
   expect(revisionId, 'the participant has a seeded revision').not.toBeNull();
 
 
-  await page.goto(`${app.url}/revisions/${revisionId}`);
+  await page.goto(`${session.app.url}/revisions/${revisionId}`);
   const viewer = page.getByTestId('model-viewer');
   await viewer.waitFor({ timeout: 30_000 });
   const canvas = viewer.locator('canvas');
@@ -70,7 +59,7 @@ it('a participant sees the model of their revision and a click names a piece', {
   await page.waitForTimeout(300);
 
   const shot = await canvas.screenshot();
-  const dir = join(app.dir, '..', 'planewright-viewer-shots');
+  const dir = join(session.app.dir, '..', 'planewright-viewer-shots');
   mkdirSync(dir, { recursive: true });
   writeFileSync(join(dir, 'viewer.png'), shot);
   const img = await Jimp.read(shot);
@@ -130,7 +119,7 @@ it('a participant sees the model of their revision and a click names a piece', {
 });
 
 it('without WebGL the model section says so in a sentence and the rest of the page works', { timeout: 60_000 }, async () => {
-  const page = await browser.context.newPage();
+  const page = await session.browser.context.newPage();
   const { problems } = watchPage(page);
   // As in a browser with WebGL turned off: no WebGL context can be made.
   await page.addInitScript({
@@ -141,11 +130,11 @@ it('without WebGL the model section says so in a sentence and the rest of the pa
       };
     })();`,
   });
-  await browser.context.clearCookies();
-  await signIn(page, app.url, 'participant@example.org');
+  await session.browser.context.clearCookies();
+  await signIn(page, session.app.url, 'participant@example.org');
   const revisionId = await latestRevision(page);
   expect(revisionId).not.toBeNull();
-  await page.goto(`${app.url}/revisions/${revisionId}`);
+  await page.goto(`${session.app.url}/revisions/${revisionId}`);
   const model = page.getByRole('region', { name: 'Model' });
   await expect.poll(() => model.getByRole('alert').innerText(), { timeout: 30_000 }).toContain('WebGL');
   expect(await page.getByTestId('model-viewer').count()).toBe(0);

@@ -10,6 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
 
 export const DEMO_PASSWORD = 'planewright-demo';
 export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -142,4 +143,21 @@ export function watchPage(page: Page): { problems: string[] } {
     if (r.status() >= 400 && !(r.status() === 401 && path === '/api/auth/me')) problems.push(`HTTP ${r.status()}: ${path}`);
   });
   return { problems };
+}
+
+/**
+ * Starts the app and a browser before a test file's tests and stops both after them; read
+ * `session.app` and `session.browser` inside the tests.
+ */
+export function useAppAndBrowser(env: Record<string, string> = {}): { readonly app: RunningApp; readonly browser: Browser } {
+  const session = {} as { app: RunningApp; browser: Browser };
+  beforeAll(async () => {
+    session.app = await startApp(env);
+    session.browser = await openBrowser();
+  });
+  afterAll(async () => {
+    await session.browser?.close();
+    await session.app?.stop();
+  });
+  return session;
 }
