@@ -5,7 +5,6 @@ import { idParam } from '../../shared/api/common.js';
 import type { AppContext } from '../context.js';
 import { Material } from '../db/entities/index.js';
 import { defineRoutes, type RouteRegistry } from '../http/routes.js';
-import { revisionsService } from '../revisions/service.js';
 import { briefResource } from './access.js';
 import { briefsService } from './service.js';
 import { sendDrawingTemplate } from './template-response.js';
@@ -19,7 +18,6 @@ export function briefsRouter(ctx: AppContext, registry: RouteRegistry): Router {
   const router = Router();
   const r = defineRoutes(router, registry, '/api');
   const service = briefsService(ctx);
-  const revisions = revisionsService(ctx);
   const ofBrief = (i: { params: { briefId: number } }) => briefResource(ctx.dataSource, i.params.briefId);
   const inStudio = (i: { params: { studioId: number } }) => ({ studioId: i.params.studioId });
 
@@ -65,9 +63,6 @@ export function briefsRouter(ctx: AppContext, registry: RouteRegistry): Router {
   });
   r.post('/briefs/:briefId/reaudit', { action: 'brief.manage', schemas: { params: briefParams }, resource: ofBrief }, async ({ res, input }) => {
     res.json({ queued: service.reauditAll(input.params.briefId) });
-  });
-  r.post('/briefs/:briefId/revisions', { action: 'revision.create', schemas: { params: briefParams }, resource: ofBrief }, async ({ req, res, actor, input }) => {
-    res.status(201).json(await revisions.create(actor!, input.params.briefId, req, res));
   });
   return router;
 }

@@ -3,11 +3,13 @@ import { z } from 'zod';
 import { assignCriticsBodySchema } from '../../shared/api/briefs.js';
 import { idParam } from '../../shared/api/common.js';
 import type { AppContext } from '../context.js';
-import { revisionResource, submissionResource } from '../briefs/access.js';
+import { briefResource, revisionResource, submissionResource } from '../briefs/access.js';
 import { sendDrawingTemplate } from '../briefs/template-response.js';
 import { defineRoutes, type RouteRegistry } from '../http/routes.js';
 import { revisionsService } from './service.js';
 
+// Revisions build on briefs (their access rules and drawing templates); briefs never import revisions.
+const briefParams = z.object({ briefId: idParam });
 const submissionParams = z.object({ submissionId: idParam });
 const revisionParams = z.object({ revisionId: idParam });
 
@@ -18,6 +20,13 @@ export function revisionsRouter(ctx: AppContext, registry: RouteRegistry): Route
   const ofSubmission = (i: { params: { submissionId: number } }) => submissionResource(ctx.dataSource, i.params.submissionId);
   const ofRevision = (i: { params: { revisionId: number } }) => revisionResource(ctx.dataSource, i.params.revisionId);
 
+  r.post(
+    '/briefs/:briefId/revisions',
+    { action: 'revision.create', schemas: { params: briefParams }, resource: (i) => briefResource(ctx.dataSource, i.params.briefId) },
+    async ({ req, res, actor, input }) => {
+      res.status(201).json(await service.create(actor!, input.params.briefId, req, res));
+    },
+  );
   r.get('/submissions/:submissionId', { action: 'submission.view', schemas: { params: submissionParams }, resource: ofSubmission }, ({ res, input }) => {
     res.json(service.submission(input.params.submissionId));
   });
