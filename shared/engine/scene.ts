@@ -407,3 +407,87 @@ export function buildScene(
 export function sceneOfDesign(design: ResolvedDesign, joints: readonly JointInput[] = []): Scene {
   return buildScene(design, buildPieces(design), joints);
 }
+
+/** A sphere in the world (mm). */
+export interface Sphere {
+  readonly center: Vec3;
+  readonly radius: number;
+}
+
+/**
+ * The bounding sphere of some pieces of a scene, built like the scene's own: the centre of the
+ * axis-aligned box of their outline vertices (each mesh's outline placed by the instance matrix),
+ * the radius to the farthest of those vertices plus the material thickness (the slab faces lie
+ * half a thickness off the outline). Ids the scene does not hold are ignored and a repeated id
+ * counts once; `count` is the number of pieces found. Null when none of the ids is in the scene.
+ */
+export function piecesSphere(scene: Scene, pieces: Iterable<string>): (Sphere & { readonly count: number }) | null {
+  const wanted = new Set(pieces);
+  if (wanted.size === 0) return null;
+  const lo = [Infinity, Infinity, Infinity];
+  const hi = [-Infinity, -Infinity, -Infinity];
+  const pts: Vec3[] = [];
+  let count = 0;
+  for (const mesh of scene.meshes) {
+    for (const inst of mesh.instances) {
+      if (!wanted.has(inst.piece)) continue;
+      count++;
+      for (const q of mesh.outline.outer) {
+        const w = transformPoint(inst.matrix, [q[0], q[1], 0]);
+        pts.push(w);
+        for (let i = 0; i < 3; i++) {
+          lo[i] = Math.min(lo[i], w[i]);
+          hi[i] = Math.max(hi[i], w[i]);
+        }
+      }
+    }
+  }
+  if (count === 0 || pts.length === 0) return null;
+  const center: Vec3 = [(lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2, (lo[2] + hi[2]) / 2];
+  let radius = 0;
+  for (const w of pts) radius = Math.max(radius, Math.hypot(w[0] - center[0], w[1] - center[1], w[2] - center[2]));
+  return { center, radius: radius + scene.thickness, count };
+}
+
+/**
+ * The connected groups of a stored report (`report.groups`, lists of piece ids) as far as they
+ * can be read: anything that is not a list gives no groups, entries that are not lists are
+ * skipped, ids that are not strings are dropped, and a group left empty is dropped.
+ */
+export function usableGroups(groups: unknown): string[][] {
+  if (!Array.isArray(groups)) return [];
+  const out: string[][] = [];
+  for (const g of groups) {
+    if (!Array.isArray(g)) continue;
+    const ids = g.filter((x): x is string => typeof x === 'string');
+    if (ids.length) out.push(ids);
+  }
+  return out;
+}
+
+/** Connected groups ranked for colouring: rank 0 is the largest. */
+export interface GroupRanking {
+  /** Rank of the group each piece is in. */
+  readonly groupOf: ReadonlyMap<string, number>;
+  /** Number of distinct pieces in each group, by rank (largest first). */
+  readonly sizes: readonly number[];
+}
+
+/**
+ * Ranks connected groups largest first (ties keep the given order) so rank 0 can take the calm
+ * colour and every other rank a warm one. A piece listed in more than one group stays in the
+ * first-ranked group that names it (it is not counted again); a repeated id within a group counts
+ * once; a group that ends up with no piece of its own is dropped. No groups give empty results.
+ */
+export function rankGroups(groups: readonly (readonly string[])[]): GroupRanking {
+  const order = groups.map((g, i) => ({ ids: [...new Set(g)], i })).sort((a, b) => b.ids.length - a.ids.length || a.i - b.i);
+  const groupOf = new Map<string, number>();
+  const sizes: number[] = [];
+  for (const { ids } of order) {
+    const own = ids.filter((id) => !groupOf.has(id));
+    if (own.length === 0) continue;
+    for (const id of own) groupOf.set(id, sizes.length);
+    sizes.push(own.length);
+  }
+  return { groupOf, sizes };
+}

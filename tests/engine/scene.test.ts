@@ -9,9 +9,9 @@ import { signedDistance, toWorld } from '../../shared/engine/frames.js';
 import type { Polygon2, ResolvedDesign } from '../../shared/engine/model.js';
 import { buildPieces } from '../../shared/engine/pieces.js';
 import { audit } from '../../shared/engine/audit.js';
-import { buildScene, congruenceMap, meshVolume, slabGeometry, transformPoint, usableJoints } from '../../shared/engine/scene.js';
+import { buildScene, congruenceMap, meshVolume, piecesSphere, rankGroups, type Scene, slabGeometry, transformPoint, usableGroups, usableJoints } from '../../shared/engine/scene.js';
 import type { Vec3 } from '../../shared/engine/vec.js';
-import { expectClose, expectSamePointSet } from './support.js';
+import { expectClose, expectSamePointSet, expectVecClose } from './support.js';
 
 function load(url: URL): ResolvedDesign {
   const r = parseDesignText(readFileSync(url, 'utf8'));
@@ -184,5 +184,107 @@ describe('buildScene', () => {
     const scene = buildScene(r.design, buildPieces(r.design));
     expect(scene.meshes).toHaveLength(0);
     expect(scene.radius).toBe(0);
+  });
+});
+
+/** A column-major translation matrix. */
+const translation = (x: number, y: number, z: number) => Float64Array.from([1, 0, 0, 0, 0, 1, 0, 0, 0, 0, 1, 0, x, y, z, 1]);
+
+describe('piecesSphere', () => {
+  // Two 10 × 20 rectangles (thickness 2), one at the origin, one moved 100 mm along x: worked
+  // out by hand, the box of the pair runs from (0, 0, 0) to (110, 20, 0).
+  const handScene: Scene = {
+    meshes: [
+      {
+        template: 0,
+        outline: rect,
+        geometry: slabGeometry(rect, 2),
+        instances: [
+          { piece: 'a-01', motif: 'a', template: 0, family: 0, matrix: translation(0, 0, 0), centroid: [5, 10, 0], explode: [0, 0, 0] },
+          { piece: 'a-02', motif: 'a', template: 0, family: 0, matrix: translation(100, 0, 0), centroid: [105, 10, 0], explode: [0, 0, 0] },
+        ],
+      },
+    ],
+    joints: [],
+    pieceCount: 2,
+    templateCount: 1,
+    families: ['f'],
+    center: [0, 0, 0],
+    radius: 0,
+    thickness: 2,
+  };
+
+  it('when one piece is asked for: the centre of its rectangle, half its diagonal plus the thickness', () => {
+    const s = piecesSphere(handScene, ['a-02'])!;
+    expect(s.count).toBe(1);
+    expectVecClose(s.center, [105, 10, 0], 1e-12, 'centre');
+    expectClose(s.radius, Math.hypot(5, 10) + 2, 1e-12, 'radius');
+  });
+
+  it('when both pieces are asked for (one twice, plus an unknown id): the box of the pair, counted once each', () => {
+    const s = piecesSphere(handScene, ['a-01', 'a-02', 'a-02', 'nope-01'])!;
+    expect(s.count).toBe(2);
+    expectVecClose(s.center, [55, 10, 0], 1e-12, 'centre');
+    expectClose(s.radius, Math.hypot(55, 10) + 2, 1e-12, 'radius');
+  });
+
+  it('when no asked id is in the scene, or none is asked: null', () => {
+    expect(piecesSphere(handScene, ['nope-01'])).toBeNull();
+    expect(piecesSphere(handScene, [])).toBeNull();
+  });
+
+  it('when every piece of the demo keel lantern is asked for: the scene\'s own bounding sphere', () => {
+    const d = demo('i-keel-lantern');
+    const scene = buildScene(d, buildPieces(d));
+    const ids = scene.meshes.flatMap((m) => m.instances.map((i) => i.piece));
+    const s = piecesSphere(scene, ids)!;
+    expect(s.count).toBe(scene.pieceCount);
+    expectVecClose(s.center, scene.center, 1e-6, 'centre');
+    expectClose(s.radius, scene.radius, 1e-6, 'radius');
+    // A subset's sphere holds every outline vertex of its pieces, caps included (the pieces'
+    // own world outlines from buildPieces, not the scene's matrices).
+    const build = buildPieces(d);
+    const chosen = build.pieces.slice(0, 3);
+    const some = piecesSphere(scene, chosen.map((p) => p.id))!;
+    expect(some.count).toBe(3);
+    for (const p of chosen) {
+      for (const q of p.polygon.outer) {
+        const w = toWorld(p.frame, q);
+        const dist = Math.hypot(w[0] - some.center[0], w[1] - some.center[1], w[2] - some.center[2]);
+        expect(dist + d.material.thickness / 2).toBeLessThanOrEqual(some.radius + 1e-9);
+      }
+    }
+  });
+});
+
+describe('usableGroups and rankGroups', () => {
+  it('when a stored report\'s groups are malformed, only lists of ids are kept', () => {
+    expect(usableGroups(undefined)).toEqual([]);
+    expect(usableGroups('x')).toEqual([]);
+    expect(usableGroups([['a', 3, 'b'], 'c', [], [null], ['d']])).toEqual([['a', 'b'], ['d']]);
+  });
+
+  it('when groups differ in size the largest gets rank 0 and ties keep their order', () => {
+    const r = rankGroups([['x'], ['a', 'b', 'c'], ['y', 'z'], ['w', 'v']]);
+    expect(r.sizes).toEqual([3, 2, 2, 1]);
+    expect(r.groupOf.get('b')).toBe(0);
+    expect(r.groupOf.get('y')).toBe(1);
+    expect(r.groupOf.get('w')).toBe(2);
+    expect(r.groupOf.get('x')).toBe(3);
+  });
+
+  it('when a piece is named twice it stays in the first-ranked group and is counted once', () => {
+    const r = rankGroups([['a', 'a', 'b'], ['b']]);
+    expect(r.sizes).toEqual([2]);
+    expect(r.groupOf.get('b')).toBe(0);
+    expect(rankGroups([]).sizes).toEqual([]);
+  });
+
+  it('when the demo half keels are audited: 20 groups of 4, every piece ranked once', () => {
+    const d = demo('i-half-keels');
+    const report = audit(d, { nesting: false, fabrication: false });
+    const r = rankGroups(usableGroups(JSON.parse(JSON.stringify(report.groups)) as unknown));
+    expect(r.sizes).toEqual(Array.from({ length: report.components }, () => 4));
+    expect(r.groupOf.size).toBe(report.pieces);
   });
 });
