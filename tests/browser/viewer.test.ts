@@ -2,7 +2,9 @@
  * The 3-D viewer on a revision page: a participant opens their latest seeded revision (the demo's
  * keel lantern), the canvas draws the model (a screenshot of it is not just background), a
  * click in the middle of the model names a piece in the side panel, and the exploded view and the
- * cutting plane each change the drawing. Without WebGL the section says so in a sentence.
+ * cutting plane each change the drawing. On a revision that falls apart (the demo's half keels),
+ * the "Show on model" button of the `disconnected` finding highlights its pieces and the colouring
+ * by connected group lists the groups. Without WebGL the section says so in a sentence.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -115,6 +117,119 @@ it('a participant sees the model of their revision and a click names a piece', {
   }
   expect(cutChanged / (width * height), 'share of pixels the cutting plane changed').toBeGreaterThan(0.02);
   await page.screenshot({ path: join(dir, 'page.png'), fullPage: false });
+  expect(problems).toEqual([]);
+});
+
+interface SeededReport {
+  components: number;
+  findings: { code: string; pieces: string[] }[];
+  groups: string[][];
+}
+
+/** The participant's first seeded revision whose audit found more than one connected group. */
+async function looseRevision(page: Page): Promise<{ id: number; report: SeededReport } | null> {
+  return page.evaluate(async () => {
+    const get = async (url: string) => {
+      const r = await fetch(url);
+      if (!r.ok) throw new Error(`${url}: ${r.status}`);
+      return (await r.json()) as unknown;
+    };
+    const studios = (await get('/api/studios')) as { id: number }[];
+    for (const s of studios) {
+      const briefs = (await get(`/api/studios/${s.id}/briefs`)) as { mySubmission: { id: number } | null }[];
+      for (const b of briefs) {
+        if (!b.mySubmission) continue;
+        const sub = (await get(`/api/submissions/${b.mySubmission.id}`)) as { revisions: { id: number }[] };
+        for (const r of sub.revisions) {
+          const rev = (await get(`/api/revisions/${r.id}`)) as { audit: { report: { components: number; findings: { code: string; pieces: string[] }[]; groups: string[][] } | null } };
+          const report = rev.audit.report;
+          if (report && report.components > 1) return { id: r.id, report };
+        }
+      }
+    }
+    return null;
+  });
+}
+
+/** Share of pixels that differ (summed channel difference over 24) between two screenshots. */
+function changedShare(a: Awaited<ReturnType<typeof Jimp.read>>, b: Awaited<ReturnType<typeof Jimp.read>>): number {
+  const { width, height } = a.bitmap;
+  expect([b.bitmap.width, b.bitmap.height]).toEqual([width, height]);
+  let changed = 0;
+  for (let i = 0; i < width * height; i++) {
+    const d = Math.abs(a.bitmap.data[4 * i] - b.bitmap.data[4 * i]) + Math.abs(a.bitmap.data[4 * i + 1] - b.bitmap.data[4 * i + 1]) + Math.abs(a.bitmap.data[4 * i + 2] - b.bitmap.data[4 * i + 2]);
+    if (d > 24) changed++;
+  }
+  return changed / (width * height);
+}
+
+it('on a revision that falls apart, a finding is shown on the model and the loose groups are coloured', { timeout: 120_000 }, async () => {
+  const page = await session.browser.context.newPage();
+  const { problems } = watchPage(page);
+  await session.browser.context.clearCookies();
+  await signIn(page, session.app.url, 'participant@example.org');
+  const loose = await looseRevision(page);
+  expect(loose, 'the participant has a seeded revision with loose groups (the half keels)').not.toBeNull();
+  const { id, report } = loose!;
+  const finding = report.findings.find((f) => f.code === 'disconnected');
+  expect(finding, 'the audit reports the design as disconnected').toBeDefined();
+  expect(report.groups.length).toBe(report.components);
+
+  await page.goto(`${session.app.url}/revisions/${id}`);
+  const viewer = page.getByTestId('model-viewer');
+  const canvas = viewer.locator('canvas');
+  await canvas.waitFor({ timeout: 30_000 });
+  await expect.poll(() => viewer.getAttribute('data-draw-calls'), { timeout: 30_000 }).not.toBeNull();
+  expect(await viewer.getAttribute('data-highlighted')).toBe('0');
+  await page.waitForTimeout(300);
+  const before = await Jimp.read(await canvas.screenshot());
+
+  // The finding's button, reached by its accessible name, and pressed from the keyboard.
+  const show = page.getByRole('button', { name: /^Show on model: disconnected,/ });
+  await show.focus();
+  await page.keyboard.press('Enter');
+  const expected = new Set(finding!.pieces).size;
+  await expect.poll(() => viewer.getAttribute('data-highlighted'), { timeout: 10_000 }).toBe(String(expected));
+  expect(await show.getAttribute('aria-pressed')).toBe('true');
+  expect(await page.getByTestId('viewer-focus').innerText()).toContain(`Showing ${expected} pieces of disconnected`);
+  // The camera flight lasts 400 ms; then the dimmed, reframed model is drawn.
+  await page.waitForTimeout(700);
+  const focused = await Jimp.read(await canvas.screenshot());
+  const focusShare = changedShare(before, focused);
+  console.log(`viewer: disconnected finding shows ${expected} of ${await viewer.getAttribute('data-pieces')} pieces, ${(focusShare * 100).toFixed(1)} % of pixels changed`);
+  // The finding names the 76 pieces outside the largest group, so only that group's 4 pieces are
+  // dimmed and the framing barely moves: a small share, but thousands of pixels.
+  expect(focusShare, 'share of pixels the highlight changed').toBeGreaterThan(0.003);
+
+  // Clear returns to the whole model: the drawing is back to the first one.
+  await page.getByRole('button', { name: 'Clear highlight' }).click();
+  await expect.poll(() => viewer.getAttribute('data-highlighted')).toBe('0');
+  expect(await show.getAttribute('aria-pressed')).toBe('false');
+  await page.waitForTimeout(700);
+  const cleared = await Jimp.read(await canvas.screenshot());
+  expect(changedShare(before, cleared), 'share of pixels still changed after Clear').toBeLessThan(focusShare / 3);
+
+  // Colouring by connected group: the legend names every group with its size.
+  await page.getByLabel('Colour by connected group').check();
+  const legend = page.getByTestId('group-legend');
+  await legend.waitFor({ timeout: 10_000 });
+  const sizes = report.groups.map((g) => g.length).sort((a, b) => b - a);
+  expect(await legend.innerText()).toContain(`Connected groups (${report.components})`);
+  const items = await legend.getByRole('listitem').allInnerTexts();
+  expect(items).toEqual(sizes.map((n, i) => `Group ${i + 1}: ${n} ${n === 1 ? 'piece' : 'pieces'}${i === 0 ? ' (largest)' : ''}${i > 8 ? ' (colour repeats)' : ''}`));
+  expect(await viewer.getAttribute('data-group-colours')).toBe(String(report.components));
+  await page.waitForTimeout(300);
+  const grouped = await Jimp.read(await canvas.screenshot());
+  expect(changedShare(before, grouped), 'share of pixels the group colours changed').toBeGreaterThan(0.02);
+
+  // A finding can be shown while the groups are coloured, and cleared again.
+  await show.click();
+  await expect.poll(() => viewer.getAttribute('data-highlighted')).toBe(String(expected));
+  await page.getByRole('button', { name: 'Clear highlight' }).click();
+  await expect.poll(() => viewer.getAttribute('data-highlighted')).toBe('0');
+  const dir = join(session.app.dir, '..', 'planewright-viewer-shots');
+  mkdirSync(dir, { recursive: true });
+  writeFileSync(join(dir, 'viewer-groups.png'), await canvas.screenshot());
   expect(problems).toEqual([]);
 });
 

@@ -1,4 +1,5 @@
 // @vitest-environment jsdom
+import { useState } from 'react';
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { FindingsTable, type FindingRow } from '../../src/features/revisions/components/findings-table.js';
@@ -72,5 +73,43 @@ describe('FindingsTable', () => {
   it('says so when the audit found nothing', () => {
     renderTable([]);
     expect(screen.getByText('No findings: the audit found nothing to change.')).toBeTruthy();
+  });
+
+  it('without a handler there is no column for the model', () => {
+    const table = renderTable();
+    expect(within(table).queryAllByRole('button', { name: /Show on model/ })).toHaveLength(0);
+  });
+
+  it('with a handler each finding with pieces gets a button named by its code; pressing it hands over that finding and marks it', () => {
+    const chosen: FindingRow[] = [];
+    function Harness() {
+      const [selected, setSelected] = useState<FindingRow | null>(null);
+      return (
+        <FindingsTable
+          findings={[...findings, { code: 'no-pieces', severity: 'info', message: 'Nothing to point at.', pieces: [] }]}
+          selectedFinding={selected}
+          onSelectFinding={(f) => {
+            chosen.push(f);
+            setSelected(f);
+          }}
+        />
+      );
+    }
+    render(<Harness />);
+    const table = screen.getByRole('table', { name: 'Findings of the audit' });
+    const buttons = within(table).getAllByRole('button', { name: /^Show on model:/ });
+    // Four findings name pieces; the fifth names none and gets no button.
+    expect(buttons).toHaveLength(4);
+    const button = within(table).getByRole('button', { name: 'Show on model: disconnected, 12 pieces' });
+    expect(button.getAttribute('aria-pressed')).toBe('false');
+    fireEvent.click(button);
+    expect(chosen.map((f) => f.code)).toEqual(['disconnected']);
+    expect(chosen[0].pieces).toHaveLength(12);
+    const pressed = within(table).getByRole('button', { name: 'Show on model: disconnected, 12 pieces' });
+    expect(pressed.getAttribute('aria-pressed')).toBe('true');
+    expect(pressed.textContent).toBe('Shown on model');
+    // Sorting and the other rows are unchanged by the choice.
+    expect(codes(table)).toEqual(['disconnected', 'short-joint', 'short-joint', 'coplanar-merge', 'no-pieces']);
+    expect(within(table).getByRole('button', { name: 'Show on model: coplanar-merge, 1 piece' }).getAttribute('aria-pressed')).toBe('false');
   });
 });

@@ -1,5 +1,5 @@
 import { useQuery, type QueryClient } from '@tanstack/react-query';
-import { lazy, Suspense } from 'react';
+import { lazy, Suspense, useCallback, useMemo, useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { AuditStateBadge } from '../../components/ui/audit-state-badge.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
@@ -13,7 +13,7 @@ import { historyQueryOptions, useHistory } from '../../features/revisions/api/ge
 import { revisionQueryOptions, useRevision } from '../../features/revisions/api/get-revision.js';
 import { AuditStatus } from '../../features/revisions/components/audit-status.js';
 import { AuditSummary, SheetEstimate } from '../../features/revisions/components/audit-summary.js';
-import { FindingsTable } from '../../features/revisions/components/findings-table.js';
+import { FindingsTable, type FindingRow } from '../../features/revisions/components/findings-table.js';
 import { PhotoThumbnails, RevisionDownloads } from '../../features/revisions/components/revision-files.js';
 import { RevisionHistory } from '../../features/revisions/components/revision-history.js';
 import { studioQueryOptions, useStudio } from '../../features/studios/api/get-studio.js';
@@ -48,6 +48,12 @@ export function Component() {
   const report = audit.state === 'done' ? audit.report : null;
   const canRetry = me?.id === revision.participant.id || studio.myRole === 'instructor' || me?.globalRole === 'admin';
   useDocumentTitle(`Revision ${revision.number} · ${revision.participant.name}`);
+  // The finding shown on the model, remembered with its revision so another revision starts clear.
+  const [shown, setShown] = useState<{ revisionId: number; finding: FindingRow } | null>(null);
+  const shownFinding = shown && shown.revisionId === revision.id ? shown.finding : null;
+  const focus = useMemo(() => (shownFinding ? { label: shownFinding.code, pieces: shownFinding.pieces } : null), [shownFinding]);
+  const onSelectFinding = useCallback((finding: FindingRow) => setShown({ revisionId: revision.id, finding }), [revision.id]);
+  const onClearFocus = useCallback(() => setShown(null), []);
 
   return (
     <div className="space-y-8">
@@ -93,7 +99,7 @@ export function Component() {
         <CardHeader id="model-heading" title="Model" description="Every piece as a slab of the material, coloured by family, with the audit's joints." />
         {report ? (
           <Suspense fallback={<Spinner label="Loading the 3-D viewer…" />}>
-            <ModelViewer design={revision.design} joints={report.joints} />
+            <ModelViewer design={revision.design} joints={report.joints} groups={report.groups} focus={focus} onClearFocus={onClearFocus} />
           </Suspense>
         ) : (
           <p className="text-sm text-ink-soft">{audit.state === 'failed' ? 'The model is shown once an audit succeeds.' : 'The model appears when the audit is done.'}</p>
@@ -102,8 +108,8 @@ export function Component() {
 
       {report ? (
         <Card aria-labelledby="findings-heading">
-          <CardHeader id="findings-heading" title="Findings" description="Sort by a column; filter by severity, code or words such as a piece id." />
-          <FindingsTable findings={report.findings} />
+          <CardHeader id="findings-heading" title="Findings" description="Sort by a column; filter by severity, code or words such as a piece id; show a finding's pieces on the model." />
+          <FindingsTable findings={report.findings} onSelectFinding={onSelectFinding} selectedFinding={shownFinding} />
         </Card>
       ) : null}
 

@@ -38,3 +38,20 @@ export const JOINT_STYLES: readonly JointStyle[] = [
 export function jointStyle(kind: string): JointStyle | undefined {
   return JOINT_STYLES.find((s) => s.kind === kind);
 }
+
+/**
+ * Connected-group colours: the largest group takes the calm blue of the family palette, every
+ * loose group a warm tint (ochres, rusts, clay), each tint differing from its neighbours in
+ * lightness too (common practice, no source). Past the list the warm tints repeat.
+ */
+export const MAIN_GROUP = '#3d78a3';
+export const LOOSE_GROUP_COLOURS = ['#d9822b', '#b8452f', '#e3b23c', '#8f4a26', '#f0a37a', '#c2692f', '#e8cf8a', '#a3332a'] as const;
+
+/** Colour of a group by its rank (0 = largest). */
+export function groupColour(rank: number): string {
+  if (rank <= 0) return MAIN_GROUP;
+  return LOOSE_GROUP_COLOURS[(rank - 1) % LOOSE_GROUP_COLOURS.length];
+}
+
+/** How far a piece outside the shown finding fades towards the paper (0 = not at all). */
+export const DIM_TOWARDS_PAPER = 0.78;

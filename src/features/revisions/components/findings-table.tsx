@@ -69,15 +69,54 @@ const columns: ColumnDef<FindingRow, any>[] = [
   },
 ];
 
+/** The last column when findings can be shown on the model: a button per finding with pieces. */
+function showColumn(onSelect: (finding: FindingRow) => void, selected: FindingRow | null): ColumnDef<FindingRow, any> {
+  return {
+    id: 'show',
+    header: 'Model',
+    enableSorting: false,
+    enableGlobalFilter: false,
+    cell: ({ row }) => {
+      const f = row.original;
+      if (f.pieces.length === 0) return <span className="text-ink-faint">—</span>;
+      const shown = f === selected;
+      return (
+        <button
+          type="button"
+          aria-pressed={shown}
+          aria-label={`Show on model: ${f.code}, ${f.pieces.length} ${f.pieces.length === 1 ? 'piece' : 'pieces'}`}
+          onClick={() => onSelect(f)}
+          className={`whitespace-nowrap rounded-md border px-2 py-1 text-xs focus-visible:outline-2 focus-visible:outline-accent ${
+            shown ? 'border-accent bg-accent text-paper' : 'border-rule-strong bg-paper-raised text-ink hover:border-accent'
+          }`}
+        >
+          {shown ? 'Shown on model' : 'Show on model'}
+        </button>
+      );
+    },
+  };
+}
+
+export interface FindingsTableProps {
+  findings: readonly FindingRow[];
+  caption?: string;
+  /** When given, each finding with pieces gets a "Show on model" button that calls this. */
+  onSelectFinding?: (finding: FindingRow) => void;
+  /** The finding shown on the model (compared by identity with an entry of `findings`). */
+  selectedFinding?: FindingRow | null;
+}
+
 /**
  * The audit's findings: sortable by severity, code and number of pieces; filtered by severity
- * (check boxes with counts), by code, and by words (piece ids, message text).
+ * (check boxes with counts), by code, and by words (piece ids, message text). With
+ * `onSelectFinding`, a last column offers to show each finding's pieces on the model.
  */
-export function FindingsTable({ findings, caption = 'Findings of the audit' }: { findings: readonly FindingRow[]; caption?: string }) {
+export function FindingsTable({ findings, caption = 'Findings of the audit', onSelectFinding, selectedFinding = null }: FindingsTableProps) {
   const [severities, setSeverities] = useState<SeverityName[]>([...SEVERITIES]);
   const [code, setCode] = useState('');
   const codeId = useId();
   const data = useMemo(() => [...findings], [findings]);
+  const tableColumns = useMemo(() => (onSelectFinding ? [...columns, showColumn(onSelectFinding, selectedFinding)] : columns), [onSelectFinding, selectedFinding]);
   const counts = useMemo(() => {
     const c: Record<SeverityName, number> = { error: 0, warning: 0, info: 0 };
     for (const f of findings) c[f.severity] += 1;
@@ -137,7 +176,7 @@ export function FindingsTable({ findings, caption = 'Findings of the audit' }: {
   return (
     <DataTable
       data={data}
-      columns={columns}
+      columns={tableColumns}
       caption={caption}
       toolbar={toolbar}
       filterLabel="Find pieces or words"

@@ -3,10 +3,10 @@ import { Canvas, useFrame, useThree } from '@react-three/fiber';
 import { Component as ReactComponent, type ReactNode, type RefObject, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { PerspectiveCamera, Plane, Vector3 } from 'three';
 import { parseDesign } from '../../../../shared/engine/design.js';
-import { type Scene, type SceneInstance, sceneOfDesign, usableJoints } from '../../../../shared/engine/scene.js';
+import { type Scene, type SceneInstance, type Sphere, piecesSphere, rankGroups, sceneOfDesign, usableGroups, usableJoints } from '../../../../shared/engine/scene.js';
 import { Button } from '../../../components/ui/button.js';
 import { EmptyState } from '../../../components/ui/empty-state.js';
-import { FAMILY_COLOURS, JOINT_STYLES, PAPER, familyColour } from '../palette.js';
+import { FAMILY_COLOURS, JOINT_STYLES, LOOSE_GROUP_COLOURS, PAPER, familyColour, groupColour } from '../palette.js';
 import { JointOverlay } from './joint-overlay.js';
 import { PieceInstances } from './piece-instances.js';
 
@@ -15,6 +15,32 @@ export interface ModelViewerProps {
   design: unknown;
   /** The audit report's joints (each with `from` and `to`); an empty list draws no overlay. */
   joints: readonly unknown[];
+  /**
+   * The report's connected groups (`report.groups`, lists of piece ids), read defensively; with
+   * more than one group the viewer offers to colour pieces by group.
+   */
+  groups?: unknown;
+  /**
+   * Pieces to show (a finding's): they keep their colour, every other piece is dimmed, and the
+   * camera flies to frame them. `label` names what they are (a finding's code). Null: whole model.
+   */
+  focus?: ViewerFocus | null;
+  /** Called by the Clear control next to a focus; the caller sets `focus` back to null. */
+  onClearFocus?: () => void;
+}
+
+/** What the viewer is asked to show: some pieces and a label naming them. */
+export interface ViewerFocus {
+  readonly label: string;
+  readonly pieces: readonly string[];
+}
+
+/** How long the camera takes to fly to a focus (ms). */
+const FLIGHT_MS = 400;
+const FIT_DIRECTION = new Vector3(0.62, -0.78, 0.48).normalize();
+
+function prefersReducedMotion(): boolean {
+  return typeof window !== 'undefined' && typeof window.matchMedia === 'function' && window.matchMedia('(prefers-reduced-motion: reduce)').matches;
 }
 
 type SceneResult = { ok: true; scene: Scene } | { ok: false; message: string };
@@ -62,29 +88,77 @@ class ViewerBoundary extends ReactComponent<{ children: ReactNode }, { failed: b
   }
 }
 
-/** Frames the whole model when `fitKey` changes; the camera looks along a fixed oblique direction. */
-function CameraRig({ scene, fitKey }: { scene: Scene; fitKey: number }) {
+interface Flight {
+  readonly from: Vector3;
+  readonly fromTarget: Vector3;
+  readonly to: Vector3;
+  readonly toTarget: Vector3;
+  readonly start: number;
+}
+
+/**
+ * Frames the whole model, or the `goal` sphere when one is given. "Fit to view" (`fitKey`) and
+ * the first frame jump; a new goal (or clearing it) flies there over {@link FLIGHT_MS}, looking
+ * from where the camera is now. The flight only mutates the camera and controls in `useFrame`.
+ */
+function CameraRig({ scene, fitKey, goal }: { scene: Scene; fitKey: number; goal: Sphere | null }) {
   const camera = useThree((s) => s.camera);
   const controls = useThree((s) => s.controls) as unknown as { target: Vector3; update(): void } | null;
   const invalidate = useThree((s) => s.invalidate);
+  const flight = useRef<Flight | null>(null);
+  const lastGoal = useRef<Sphere | null | undefined>(undefined);
+  const scratch = useMemo(() => new Vector3(), []);
   useEffect(() => {
     if (!(camera instanceof PerspectiveCamera)) return;
-    const r = Math.max(scene.radius, 1);
-    const dist = (r / Math.sin((camera.fov * Math.PI) / 360)) * 1.08;
-    const [cx, cy, cz] = scene.center;
-    const dir = new Vector3(0.62, -0.78, 0.48).normalize();
+    const sphere = goal ?? scene;
+    const floor = goal ? Math.max(scene.thickness * 4, scene.radius * 0.04, 1) : 1;
+    const r = Math.max(sphere.radius, floor);
+    const sin = Math.sin((camera.fov * Math.PI) / 360);
+    const dist = (r / sin) * 1.08;
+    const whole = (Math.max(scene.radius, 1) / sin) * 1.08;
+    const target = new Vector3(sphere.center[0], sphere.center[1], sphere.center[2]);
+    const fly = lastGoal.current !== undefined && lastGoal.current !== goal && !prefersReducedMotion();
+    const dir = FIT_DIRECTION.clone();
+    if (fly && controls) {
+      const d = camera.position.clone().sub(controls.target);
+      if (d.lengthSq() > 1e-12) dir.copy(d.normalize());
+    }
+    lastGoal.current = goal;
+    const to = target.clone().addScaledVector(dir, dist);
     camera.up.set(0, 0, 1);
-    camera.position.set(cx + dir.x * dist, cy + dir.y * dist, cz + dir.z * dist);
-    camera.near = Math.max(0.1, dist / 200);
-    camera.far = dist * 20;
+    camera.near = Math.max(0.1, Math.min(dist, whole) / 200);
+    camera.far = Math.max(dist, whole) * 20;
     camera.updateProjectionMatrix();
-    camera.lookAt(cx, cy, cz);
-    if (controls) {
-      controls.target.set(cx, cy, cz);
-      controls.update();
+    if (fly) {
+      flight.current = { from: camera.position.clone(), fromTarget: controls ? controls.target.clone() : target.clone(), to, toTarget: target, start: performance.now() };
+    } else {
+      flight.current = null;
+      camera.position.copy(to);
+      camera.lookAt(target);
+      if (controls) {
+        controls.target.copy(target);
+        controls.update();
+      }
     }
     invalidate();
-  }, [camera, controls, scene, fitKey, invalidate]);
+    // fitKey only re-runs the framing.
+  }, [camera, controls, scene, fitKey, goal, invalidate]);
+  useFrame(() => {
+    const f = flight.current;
+    if (!f) return;
+    const t = Math.min(1, (performance.now() - f.start) / FLIGHT_MS);
+    const e = t < 0.5 ? 2 * t * t : 1 - (-2 * t + 2) ** 2 / 2;
+    camera.position.lerpVectors(f.from, f.to, e);
+    scratch.lerpVectors(f.fromTarget, f.toTarget, e);
+    if (controls) {
+      controls.target.copy(scratch);
+      controls.update();
+    } else {
+      camera.lookAt(scratch);
+    }
+    if (t >= 1) flight.current = null;
+    else invalidate();
+  });
   return null;
 }
 
@@ -101,7 +175,7 @@ function RenderProbe({ target }: { target: RefObject<HTMLDivElement | null> }) {
  * The 3-D model of a revision: every piece as a slab of the material, one instanced mesh per
  * template, coloured by family, with the audit's joints drawn by kind (shape and colour).
  */
-export default function ModelViewer({ design, joints }: ModelViewerProps) {
+export default function ModelViewer({ design, joints, groups, focus = null, onClearFocus }: ModelViewerProps) {
   const result = useMemo(() => computeScene(design, joints), [design, joints]);
   const [webgl] = useState(webglAvailable);
   if (!result.ok) {
@@ -123,12 +197,12 @@ export default function ModelViewer({ design, joints }: ModelViewerProps) {
   }
   return (
     <ViewerBoundary>
-      <ViewerBody scene={result.scene} />
+      <ViewerBody scene={result.scene} groups={groups} focus={focus} onClearFocus={onClearFocus} />
     </ViewerBoundary>
   );
 }
 
-function ViewerBody({ scene }: { scene: Scene }) {
+function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; groups: unknown; focus: ViewerFocus | null; onClearFocus?: () => void }) {
   const [hovered, setHovered] = useState<string | null>(null);
   const [selected, setSelected] = useState<string | null>(null);
   const [explode, setExplode] = useState(0);
@@ -136,7 +210,17 @@ function ViewerBody({ scene }: { scene: Scene }) {
   const [fitKey, setFitKey] = useState(0);
   const [cutOn, setCutOn] = useState(false);
   const [cut, setCut] = useState(0);
+  const [byGroup, setByGroup] = useState(false);
   const frame = useRef<HTMLDivElement>(null);
+  const ranking = useMemo(() => rankGroups(usableGroups(groups)), [groups]);
+  const groupsShown = byGroup && ranking.sizes.length > 1;
+  const focusSet = useMemo(() => (focus ? new Set(focus.pieces) : null), [focus]);
+  const goal = useMemo(() => (focusSet ? piecesSphere(scene, focusSet) : null), [scene, focusSet]);
+  const highlighted = goal?.count ?? 0;
+  useEffect(() => {
+    if (!focus) return;
+    frame.current?.scrollIntoView?.({ block: 'center', behavior: prefersReducedMotion() ? 'auto' : 'smooth' });
+  }, [focus]);
 
   const instances = useMemo(() => {
     const m = new Map<string, SceneInstance>();
@@ -162,16 +246,41 @@ function ViewerBody({ scene }: { scene: Scene }) {
   const onHover = useCallback((p: string | null) => setHovered(p), []);
   const onSelect = useCallback((p: string) => setSelected(p), []);
   const problemCount = scene.joints.filter((j) => !j.orthogonal || j.locked).length;
-  const focus = selected ?? hovered;
+  const pointed = selected ?? hovered;
 
   return (
     <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_18rem]">
       <div className="space-y-3">
+        <div aria-live="polite" data-testid="viewer-focus">
+          {focus ? (
+            <div className="flex flex-wrap items-center gap-3 rounded-md border border-accent bg-paper-raised px-3 py-2 text-sm">
+              <span>
+                {highlighted > 0 ? (
+                  <>
+                    Showing {highlighted} {highlighted === 1 ? 'piece' : 'pieces'} of <code className="font-mono">{focus.label}</code>; the rest of the model is dimmed.
+                    {highlighted < new Set(focus.pieces).size ? ` ${new Set(focus.pieces).size - highlighted} named pieces are not in this model.` : ''}
+                  </>
+                ) : (
+                  <>
+                    None of the pieces of <code className="font-mono">{focus.label}</code> is in this model.
+                  </>
+                )}
+              </span>
+              {onClearFocus ? (
+                <Button variant="secondary" size="sm" onClick={onClearFocus}>
+                  Clear highlight
+                </Button>
+              ) : null}
+            </div>
+          ) : null}
+        </div>
         <div
           ref={frame}
           data-testid="model-viewer"
           data-templates={scene.templateCount}
           data-pieces={scene.pieceCount}
+          data-highlighted={highlighted}
+          data-group-colours={groupsShown ? ranking.sizes.length : 0}
           className="relative h-[28rem] overflow-hidden rounded-md border border-rule bg-paper"
           style={{ cursor: hovered ? 'pointer' : 'grab' }}
         >
@@ -198,13 +307,15 @@ function ViewerBody({ scene }: { scene: Scene }) {
                 clip={clip}
                 hovered={hovered}
                 selected={selected}
+                highlight={focusSet}
+                groupOf={groupsShown ? ranking.groupOf : null}
                 onHover={onHover}
                 onSelect={onSelect}
               />
             ))}
             {showJoints && explode === 0 && !cutOn && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} /> : null}
             <OrbitControls makeDefault enableDamping={false} />
-            <CameraRig scene={scene} fitKey={fitKey} />
+            <CameraRig scene={scene} fitKey={fitKey} goal={goal} />
             <RenderProbe target={frame} />
           </Canvas>
         </div>
@@ -228,13 +339,20 @@ function ViewerBody({ scene }: { scene: Scene }) {
             <input type="checkbox" checked={showJoints} onChange={(e) => setShowJoints(e.target.checked)} />
             <span>Show joints</span>
           </label>
+          {ranking.sizes.length > 1 ? (
+            <label className="flex items-center gap-2">
+              <input type="checkbox" checked={byGroup} onChange={(e) => setByGroup(e.target.checked)} />
+              <span>Colour by connected group</span>
+            </label>
+          ) : null}
           <span className="text-ink-soft">
             Drag to turn, scroll to zoom, right-drag to pan.{(explode > 0 || cutOn) && showJoints ? ' Joints show when the pieces are together and uncut.' : ''}
           </span>
         </div>
       </div>
       <aside aria-label="Piece details" className="space-y-4 text-sm">
-        <PiecePanel scene={scene} piece={focus} instance={focus ? instances.get(focus) : undefined} joints={focus ? (jointsOf.get(focus) ?? []) : []} pinned={selected !== null} />
+        <PiecePanel scene={scene} piece={pointed} instance={pointed ? instances.get(pointed) : undefined} joints={pointed ? (jointsOf.get(pointed) ?? []) : []} pinned={selected !== null} />
+        {groupsShown ? <GroupLegend sizes={ranking.sizes} /> : null}
         <Legend scene={scene} problemCount={problemCount} />
       </aside>
     </div>
@@ -328,6 +446,29 @@ function Legend({ scene, problemCount }: { scene: Scene; problemCount: number })
           <li>A red ring marks a joint that is not square or cannot be assembled{problemCount ? ` (${problemCount} here)` : ' (none here)'}.</li>
         </ul>
       </div>
+    </div>
+  );
+}
+
+function GroupLegend({ sizes }: { sizes: readonly number[] }) {
+  return (
+    <div className="space-y-2 rounded-md border border-rule px-3 py-3" data-testid="group-legend">
+      <p className="font-semibold">Connected groups ({sizes.length})</p>
+      <p className="text-ink-soft">
+        The pieces fall into {sizes.length} groups that are not joined to each other. The largest is blue; every warm-coloured group floats loose from it.
+      </p>
+      <ul className="max-h-48 space-y-0.5 overflow-auto">
+        {sizes.map((n, i) => (
+          <li key={i} className="flex items-center gap-2">
+            <span aria-hidden="true" className="inline-block size-3 rounded-sm" style={{ background: groupColour(i) }} />
+            <span>
+              Group {i + 1}: {n} {n === 1 ? 'piece' : 'pieces'}
+              {i === 0 ? ' (largest)' : ''}
+              {i > LOOSE_GROUP_COLOURS.length ? ' (colour repeats)' : ''}
+            </span>
+          </li>
+        ))}
+      </ul>
     </div>
   );
 }

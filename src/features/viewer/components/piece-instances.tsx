@@ -2,7 +2,7 @@ import { useThree, type ThreeEvent } from '@react-three/fiber';
 import { useLayoutEffect, useMemo, useRef } from 'react';
 import { BufferAttribute, BufferGeometry, Color, DoubleSide, type InstancedMesh, Matrix4, MeshStandardMaterial, type Plane } from 'three';
 import type { SceneMesh } from '../../../../shared/engine/scene.js';
-import { HOVER, SELECTED, familyColour } from '../palette.js';
+import { DIM_TOWARDS_PAPER, HOVER, PAPER, SELECTED, familyColour, groupColour } from '../palette.js';
 
 export interface PieceInstancesProps {
   mesh: SceneMesh;
@@ -12,12 +12,16 @@ export interface PieceInstancesProps {
   clip: Plane | null;
   hovered: string | null;
   selected: string | null;
+  /** The pieces of the finding shown on the model (all others are dimmed), or null. */
+  highlight: ReadonlySet<string> | null;
+  /** Rank of each piece's connected group when colouring by group, else null (family colours). */
+  groupOf: ReadonlyMap<string, number> | null;
   onHover(piece: string | null): void;
   onSelect(piece: string): void;
 }
 
 /** One template's slab drawn once for all its pieces (one draw call). */
-export function PieceInstances({ mesh, explode, clip, hovered, selected, onHover, onSelect }: PieceInstancesProps) {
+export function PieceInstances({ mesh, explode, clip, hovered, selected, highlight, groupOf, onHover, onSelect }: PieceInstancesProps) {
   const ref = useRef<InstancedMesh>(null);
   const invalidate = useThree((s) => s.invalidate);
   const geometry = useMemo(() => {
@@ -38,7 +42,7 @@ export function PieceInstances({ mesh, explode, clip, hovered, selected, onHover
   useLayoutEffect(() => () => geometry.dispose(), [geometry]);
   useLayoutEffect(() => () => material.dispose(), [material]);
   // Scratch objects, allocated once per mesh component.
-  const scratch = useMemo(() => ({ m: new Matrix4(), t: new Matrix4(), c: new Color(), hover: new Color(HOVER) }), []);
+  const scratch = useMemo(() => ({ m: new Matrix4(), t: new Matrix4(), c: new Color(), hover: new Color(HOVER), paper: new Color(PAPER) }), []);
   useLayoutEffect(() => {
     const im = ref.current;
     if (!im) return;
@@ -59,15 +63,17 @@ export function PieceInstances({ mesh, explode, clip, hovered, selected, onHover
   useLayoutEffect(() => {
     const im = ref.current;
     if (!im) return;
-    const { c, hover } = scratch;
+    const { c, hover, paper } = scratch;
     mesh.instances.forEach((inst, i) => {
-      c.set(inst.piece === selected ? SELECTED : familyColour(inst.family));
+      const base = groupOf ? groupColour(groupOf.get(inst.piece) ?? 0) : familyColour(inst.family);
+      c.set(inst.piece === selected ? SELECTED : base);
+      if (highlight && !highlight.has(inst.piece) && inst.piece !== selected) c.lerp(paper, DIM_TOWARDS_PAPER);
       if (inst.piece === hovered && inst.piece !== selected) c.lerp(hover, 0.55);
       im.setColorAt(i, c);
     });
     if (im.instanceColor) im.instanceColor.needsUpdate = true;
     invalidate();
-  }, [mesh, hovered, selected, scratch, invalidate]);
+  }, [mesh, hovered, selected, highlight, groupOf, scratch, invalidate]);
 
   const pieceAt = (e: ThreeEvent<PointerEvent | MouseEvent>) => (e.instanceId === undefined ? null : (mesh.instances[e.instanceId]?.piece ?? null));
 
