@@ -12,7 +12,7 @@ import { Jimp } from 'jimp';
 import type { Page } from 'playwright-core';
 import { expect, it } from 'vitest';
 import { useAppAndBrowser, watchPage } from './support/app.js';
-import { signIn } from './support/pages.js';
+import { expectAccessible, signIn } from './support/pages.js';
 
 const session = useAppAndBrowser();
 
@@ -222,11 +222,14 @@ it('on a revision that falls apart, a finding is shown on the model and the loos
   const grouped = await Jimp.read(await canvas.screenshot());
   expect(changedShare(before, grouped), 'share of pixels the group colours changed').toBeGreaterThan(0.02);
 
-  // A finding can be shown while the groups are coloured, and cleared again.
+  // A finding can be shown while the groups are coloured; the page stays accessible with the
+  // focus bar and the group legend out; pressing the shown finding's button again clears it.
   await show.click();
   await expect.poll(() => viewer.getAttribute('data-highlighted')).toBe(String(expected));
-  await page.getByRole('button', { name: 'Clear highlight' }).click();
+  await expectAccessible(page, 'revision page with a finding shown and groups coloured');
+  await show.click();
   await expect.poll(() => viewer.getAttribute('data-highlighted')).toBe('0');
+  expect(await page.getByRole('button', { name: 'Clear highlight' }).count()).toBe(0);
   const dir = join(session.app.dir, '..', 'planewright-viewer-shots');
   mkdirSync(dir, { recursive: true });
   writeFileSync(join(dir, 'viewer-groups.png'), await canvas.screenshot());

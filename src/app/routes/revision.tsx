@@ -52,7 +52,11 @@ export function Component() {
   const [shown, setShown] = useState<{ revisionId: number; finding: FindingRow } | null>(null);
   const shownFinding = shown && shown.revisionId === revision.id ? shown.finding : null;
   const focus = useMemo(() => (shownFinding ? { label: shownFinding.code, pieces: shownFinding.pieces } : null), [shownFinding]);
-  const onSelectFinding = useCallback((finding: FindingRow) => setShown({ revisionId: revision.id, finding }), [revision.id]);
+  // The row's button is a toggle: pressing the shown finding again returns to the whole model.
+  const onSelectFinding = useCallback(
+    (finding: FindingRow) => setShown((current) => (current && current.revisionId === revision.id && current.finding === finding ? null : { revisionId: revision.id, finding })),
+    [revision.id],
+  );
   const onClearFocus = useCallback(() => setShown(null), []);
 
   return (

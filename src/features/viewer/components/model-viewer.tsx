@@ -457,7 +457,8 @@ function GroupLegend({ sizes }: { sizes: readonly number[] }) {
       <p className="text-ink-soft">
         The pieces fall into {sizes.length} groups that are not joined to each other. The largest is blue; every warm-coloured group floats loose from it.
       </p>
-      <ul className="max-h-48 space-y-0.5 overflow-auto">
+      {/* Scrolls when there are many groups, so it takes the keyboard focus too. */}
+      <ul className="max-h-48 space-y-0.5 overflow-auto focus-visible:outline-2 focus-visible:outline-accent" tabIndex={0} aria-label="Connected groups and their sizes">
         {sizes.map((n, i) => (
           <li key={i} className="flex items-center gap-2">
             <span aria-hidden="true" className="inline-block size-3 rounded-sm" style={{ background: groupColour(i) }} />
