@@ -8,12 +8,15 @@ export function signOut(): Promise<void> {
 }
 
 /**
- * Signs out, lets the caller leave the current screen (`leave`, usually a navigation to the
+ * Cancels what is loading, signs out, lets the caller leave the current screen (`leave`, usually a navigation to the
  * sign-in page), then drops every cached answer that belonged to the person.
  */
 export function useSignOut(leave: () => void | Promise<void>) {
   const queryClient = useQueryClient();
   return useMutation({
+    // Requests still in flight would reach the server after the session is gone and come back
+    // 401; cancelling them first (their fetches are aborted) keeps sign-out quiet.
+    onMutate: () => queryClient.cancelQueries(),
     mutationFn: signOut,
     onSuccess: async () => {
       await leave();
