@@ -9,6 +9,7 @@ import { FormStatus, type FormStatusValue } from '../../../components/ui/form-st
 import { ROLE_LABELS, RoleBadge } from '../../../components/ui/role-badge.js';
 import { formatDate, formatDateTime } from '../../../lib/format.js';
 import { useUpdateUser } from '../api/update-user.js';
+import { EmailText, PersonName } from '../../../components/ui/person-cells.js';
 
 const column = createColumnHelper<AdminUser>();
 const NONE = '';
@@ -22,18 +23,11 @@ export function UsersTable({ users, currentUserId }: { users: AdminUser[]; curre
     () => [
       column.accessor('name', {
         header: 'Name',
-        cell: (info) => (
-          <span className="font-medium">
-            {info.getValue()}
-            {info.row.original.id === currentUserId ? (
-              <span className="ml-2 font-mono text-xs font-normal text-ink-soft">(you)</span>
-            ) : null}
-          </span>
-        ),
+        cell: (info) => <PersonName name={info.getValue()} isYou={info.row.original.id === currentUserId} />,
       }),
       column.accessor('email', {
         header: 'E-mail',
-        cell: (info) => <span className="font-mono text-[0.8rem] text-ink-soft">{info.getValue()}</span>,
+        cell: (info) => <EmailText email={info.getValue()} />,
       }),
       column.accessor((u) => u.globalRole ?? '', {
         id: 'globalRole',

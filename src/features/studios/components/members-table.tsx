@@ -11,6 +11,7 @@ import { ROLE_LABELS, RoleBadge } from '../../../components/ui/role-badge.js';
 import { formatDate } from '../../../lib/format.js';
 import { useRemoveMember } from '../api/remove-member.js';
 import { useUpdateMember } from '../api/update-member.js';
+import { EmailText, PersonName } from '../../../components/ui/person-cells.js';
 
 const column = createColumnHelper<Member>();
 const roleOrder = (role: StudioRole) => STUDIO_ROLES.indexOf(role);
@@ -65,18 +66,11 @@ export function MembersTable({
     const base = [
       column.accessor('name', {
         header: 'Name',
-        cell: (info) => (
-          <span className="font-medium">
-            {info.getValue()}
-            {info.row.original.userId === currentUserId ? (
-              <span className="ml-2 font-mono text-xs font-normal text-ink-soft">(you)</span>
-            ) : null}
-          </span>
-        ),
+        cell: (info) => <PersonName name={info.getValue()} isYou={info.row.original.userId === currentUserId} />,
       }),
       column.accessor('email', {
         header: 'E-mail',
-        cell: (info) => <span className="font-mono text-[0.8rem] text-ink-soft">{info.getValue()}</span>,
+        cell: (info) => <EmailText email={info.getValue()} />,
       }),
       column.accessor('role', {
         header: 'Role',
