@@ -16,26 +16,34 @@ import { expectAccessible, signIn } from './support/pages.js';
 
 const session = useAppAndBrowser();
 
-/** The participant's latest revision, found through the API from the page (as the app does). */
-async function latestRevision(page: Page): Promise<number | null> {
-  return page.evaluate(async () => {
-    const get = async (url: string) => {
-      const r = await fetch(url);
-      if (!r.ok) throw new Error(`${url}: ${r.status}`);
-      return (await r.json()) as unknown;
-    };
-    const studios = (await get('/api/studios')) as { id: number }[];
-    for (const s of studios) {
-      const briefs = (await get(`/api/studios/${s.id}/briefs`)) as { mySubmission: { id: number } | null }[];
-      for (const b of briefs) {
-        if (!b.mySubmission) continue;
-        const sub = (await get(`/api/submissions/${b.mySubmission.id}`)) as { revisions: { id: number; number: number }[] };
-        const latest = [...sub.revisions].sort((x, y) => y.number - x.number)[0];
-        if (latest) return latest.id;
-      }
+/** A JSON answer of the API, fetched from inside the page with the page's own session. */
+async function getJson<T>(page: Page, url: string): Promise<T> {
+  return (await page.evaluate(async (u) => {
+    const r = await fetch(u);
+    if (!r.ok) throw new Error(`${u}: ${r.status}`);
+    return (await r.json()) as unknown;
+  }, url)) as T;
+}
+
+/** The signed-in participant's revisions, one list per submission, in studio and brief order. */
+async function myRevisions(page: Page): Promise<{ id: number; number: number }[][]> {
+  const out: { id: number; number: number }[][] = [];
+  for (const s of await getJson<{ id: number }[]>(page, '/api/studios')) {
+    for (const b of await getJson<{ mySubmission: { id: number } | null }[]>(page, `/api/studios/${s.id}/briefs`)) {
+      if (!b.mySubmission) continue;
+      out.push((await getJson<{ revisions: { id: number; number: number }[] }>(page, `/api/submissions/${b.mySubmission.id}`)).revisions);
     }
-    return null;
-  });
+  }
+  return out;
+}
+
+/** The participant's latest revision of their first submission, found through the API (as the app does). */
+async function latestRevision(page: Page): Promise<number | null> {
+  for (const revisions of await myRevisions(page)) {
+    const latest = [...revisions].sort((x, y) => y.number - x.number)[0];
+    if (latest) return latest.id;
+  }
+  return null;
 }
 
 /** Paper background of the viewer (src/features/viewer/palette.ts). */
@@ -128,27 +136,13 @@ interface SeededReport {
 
 /** The participant's first seeded revision whose audit found more than one connected group. */
 async function looseRevision(page: Page): Promise<{ id: number; report: SeededReport } | null> {
-  return page.evaluate(async () => {
-    const get = async (url: string) => {
-      const r = await fetch(url);
-      if (!r.ok) throw new Error(`${url}: ${r.status}`);
-      return (await r.json()) as unknown;
-    };
-    const studios = (await get('/api/studios')) as { id: number }[];
-    for (const s of studios) {
-      const briefs = (await get(`/api/studios/${s.id}/briefs`)) as { mySubmission: { id: number } | null }[];
-      for (const b of briefs) {
-        if (!b.mySubmission) continue;
-        const sub = (await get(`/api/submissions/${b.mySubmission.id}`)) as { revisions: { id: number }[] };
-        for (const r of sub.revisions) {
-          const rev = (await get(`/api/revisions/${r.id}`)) as { audit: { report: { components: number; findings: { code: string; pieces: string[] }[]; groups: string[][] } | null } };
-          const report = rev.audit.report;
-          if (report && report.components > 1) return { id: r.id, report };
-        }
-      }
+  for (const revisions of await myRevisions(page)) {
+    for (const r of revisions) {
+      const report = (await getJson<{ audit: { report: SeededReport | null } }>(page, `/api/revisions/${r.id}`)).audit.report;
+      if (report && report.components > 1) return { id: r.id, report };
     }
-    return null;
-  });
+  }
+  return null;
 }
 
 /** Share of pixels that differ (summed channel difference over 24) between two screenshots. */
