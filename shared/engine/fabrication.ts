@@ -10,9 +10,9 @@
  * finding that lists every affected piece.
  */
 import { Clipper, FillRule, PointInPolygonResult, type Path64, type Paths64, type Point64 } from 'clipper2-js';
-import { toFrame, toWorld } from './frames.js';
+import { frameToFrame, toFrame, toWorld } from './frames.js';
 import type { Finding, Joint, JointKind, Piece, Polygon2, Ring, Template } from './model.js';
-import { locateInPolygon, polygonArea, segmentDistance } from './polygons.js';
+import { bounds, locateInPolygon, polygonArea, segmentDistance } from './polygons.js';
 import { LENGTH_TOL } from './tolerance.js';
 import { type Vec2, canonicalSign, dot } from './vec.js';
 
@@ -170,7 +170,7 @@ function slabClashes(pieces: readonly Piece[], t: number): Finding[] {
       g = { ref: p, entries: [] };
       groups.set(key, g);
     }
-    const box = p.frame === g.ref.frame ? ringBox(p.polygon.outer) : ringBoxIn(p, g.ref.frame);
+    const box = p.frame === g.ref.frame ? bounds([p.polygon.outer]) : ringBoxIn(p, g.ref.frame);
     g.entries.push({ piece: p, s: dot(p.frame.origin, c), box });
   }
   const clashes: Clash[] = [];
@@ -294,18 +294,8 @@ function shapeHash(p: Piece): string {
  * a's (linear part and shift), rounded. Equal for every symmetric copy of the pair.
  */
 function placementKey(a: Piece, b: Piece): string {
-  const fa = a.frame;
-  const fb = b.frame;
   // L: b's frame → a's frame (parallel planes: an isometry of the plane), τ its shift.
-  const l0 = dot(fb.u, fa.u);
-  const l1 = dot(fb.v, fa.u);
-  const l2 = dot(fb.u, fa.v);
-  const l3 = dot(fb.v, fa.v);
-  const ox = fb.origin[0] - fa.origin[0];
-  const oy = fb.origin[1] - fa.origin[1];
-  const oz = fb.origin[2] - fa.origin[2];
-  const t0 = ox * fa.u[0] + oy * fa.u[1] + oz * fa.u[2];
-  const t1 = ox * fa.v[0] + oy * fa.v[1] + oz * fa.v[2];
+  const [l0, l1, l2, l3, t0, t1] = frameToFrame(b.frame, a.frame);
   const [a0, a1, a2, a3] = a.map;
   const [b0, b1, b2, b3] = b.map;
   // M = Aᵀ · L · B,  τ' = Aᵀ · τ.
@@ -322,16 +312,7 @@ function placementKey(a: Piece, b: Piece): string {
 
 /** Box of `p`'s outline seen in the frame `ref` of a parallel plane (the outline projected). */
 function ringBoxIn(p: Piece, ref: Piece['frame']): [number, number, number, number] {
-  const f = p.frame;
-  const l0 = dot(f.u, ref.u);
-  const l1 = dot(f.v, ref.u);
-  const l2 = dot(f.u, ref.v);
-  const l3 = dot(f.v, ref.v);
-  const ox = f.origin[0] - ref.origin[0];
-  const oy = f.origin[1] - ref.origin[1];
-  const oz = f.origin[2] - ref.origin[2];
-  const t0 = ox * ref.u[0] + oy * ref.u[1] + oz * ref.u[2];
-  const t1 = ox * ref.v[0] + oy * ref.v[1] + oz * ref.v[2];
+  const [l0, l1, l2, l3, t0, t1] = frameToFrame(p.frame, ref);
   let x0 = Infinity;
   let y0 = Infinity;
   let x1 = -Infinity;
@@ -343,20 +324,6 @@ function ringBoxIn(p: Piece, ref: Piece['frame']): [number, number, number, numb
     if (x > x1) x1 = x;
     if (y < y0) y0 = y;
     if (y > y1) y1 = y;
-  }
-  return [x0, y0, x1, y1];
-}
-
-function ringBox(r: Ring): [number, number, number, number] {
-  let x0 = Infinity;
-  let y0 = Infinity;
-  let x1 = -Infinity;
-  let y1 = -Infinity;
-  for (const p of r) {
-    x0 = Math.min(x0, p[0]);
-    y0 = Math.min(y0, p[1]);
-    x1 = Math.max(x1, p[0]);
-    y1 = Math.max(y1, p[1]);
   }
   return [x0, y0, x1, y1];
 }

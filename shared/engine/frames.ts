@@ -44,3 +44,22 @@ export function toFrame(f: PlaneFrame, p: Vec3): Vec2 {
 export function signedDistance(f: PlaneFrame, p: Vec3): number {
   return dot(p, f.normal) - f.offset;
 }
+
+/**
+ * The affine map from frame coordinates of `from` to frame coordinates of `to`, after projecting
+ * onto `to`'s plane: (x, y) ↦ (l0·x + l1·y + t0, l2·x + l3·y + t1), returned as
+ * [l0, l1, l2, l3, t0, t1]. For parallel planes the linear part is a rotation or a reflection.
+ */
+export function frameToFrame(from: PlaneFrame, to: PlaneFrame): readonly [number, number, number, number, number, number] {
+  const ox = from.origin[0] - to.origin[0];
+  const oy = from.origin[1] - to.origin[1];
+  const oz = from.origin[2] - to.origin[2];
+  return [
+    dot(from.u, to.u),
+    dot(from.v, to.u),
+    dot(from.u, to.v),
+    dot(from.v, to.v),
+    ox * to.u[0] + oy * to.u[1] + oz * to.u[2],
+    ox * to.v[0] + oy * to.v[1] + oz * to.v[2],
+  ];
+}
