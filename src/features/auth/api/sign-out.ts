@@ -8,8 +8,9 @@ export function signOut(): Promise<void> {
 }
 
 /**
- * Cancels what is loading, signs out, lets the caller leave the current screen (`leave`, usually a navigation to the
- * sign-in page), then drops every cached answer that belonged to the person.
+ * Cancels what is loading, signs out, marks the person signed out, lets the caller leave the
+ * current screen (`leave`, usually a navigation to the sign-in page), then drops every cached
+ * answer that belonged to the person.
  */
 export function useSignOut(leave: () => void | Promise<void>) {
   const queryClient = useQueryClient();
@@ -19,8 +20,10 @@ export function useSignOut(leave: () => void | Promise<void>) {
     onMutate: () => queryClient.cancelQueries(),
     mutationFn: signOut,
     onSuccess: async () => {
-      await leave();
+      // Signed out first, so the signed-in screens unmount and stop observing their queries;
+      // removing a query that a mounted screen still observes makes it fetch again (a 401).
       queryClient.setQueryData(authKeys.me(), null);
+      await leave();
       queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== authKeys.all[0] });
     },
   });
