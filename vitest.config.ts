@@ -9,6 +9,7 @@ export default defineConfig({
           name: 'unit',
           include: ['tests/unit/**/*.test.{ts,tsx}', 'tests/engine/**/*.test.ts'],
           environment: 'node',
+          setupFiles: ['tests/setup/fast-check.ts'],
           server: { deps: { inline: ['quickhull3d'] } },
           testTimeout: 30_000,
         },

@@ -9,7 +9,7 @@
  * through `piece.map`), so symmetric copies cost a hash each and are reported together in one
  * finding that lists every affected piece.
  */
-import { Clipper, FillRule, PointInPolygonResult, type Path64, type Paths64, type Point64 } from 'clipper2-js';
+import { Clipper, FillRule, PointInPolygonResult, type Path64, type Paths64, type Point64 } from './clipper.js';
 import { frameToFrame, toFrame, toWorld } from './frames.js';
 import type { Finding, Joint, JointKind, Piece, Polygon2, Ring, Template } from './model.js';
 import { bounds, locateInPolygon, polygonArea, segmentDistance } from './polygons.js';
