@@ -1,4 +1,5 @@
 import { Brief, BriefChange } from './brief.js';
+import { Feedback, Pin, PinAnchor, PinComment, Pinup, PinupEntry, ScoreSheet } from './critique.js';
 import { Invitation } from './invitation.js';
 import { MailMessage } from './mail-message.js';
 import { Material } from './material.js';
@@ -11,6 +12,7 @@ import { Audit, Blob, CriticAssignment, Revision, RevisionFile, Submission } fro
 import { User } from './user.js';
 
 export { Invitation, MailMessage, Membership, PasswordReset, Session, Studio, User };
+export { Feedback, Pin, PinAnchor, PinComment, Pinup, PinupEntry, ScoreSheet };
 export { Audit, Blob, Brief, BriefChange, CriticAssignment, Material, NotificationLog, NotificationSetting, Revision, RevisionFile, Submission };
 
 /** Every entity, for the data source. */
@@ -33,4 +35,11 @@ export const ENTITIES = [
   CriticAssignment,
   NotificationSetting,
   NotificationLog,
+  Pin,
+  PinAnchor,
+  PinComment,
+  Pinup,
+  PinupEntry,
+  ScoreSheet,
+  Feedback,
 ];
