@@ -1,20 +1,13 @@
-// The viewer's own colours. Family colours follow the usual principles for colour-blind
-// legibility (common practice, no source): hues spread over blue / orange / yellow / purple axes
-// rather than red against green, and every neighbour also differs in lightness, so the families
-// still separate in greyscale. Warm, earthy values to sit on the paper background.
-// Joint markers use ink, near-white and pale tints instead, so they stand out on every family.
-export const FAMILY_COLOURS = ['#c8733a', '#3d78a3', '#d8b043', '#2e8470', '#9c5a8c', '#7a6448'] as const;
+// The viewer's own colours. The family colours, the paper and the ink live in
+// shared/engine/palette.ts (the revision thumbnails draw with the same list); the viewer's
+// states and joint markers stay here. Joint markers use ink, near-white and pale tints, so they
+// stand out on every family.
+export { FAMILY_COLOURS, INK, PAPER, familyColour } from '../../../shared/engine/palette.js';
 
-export const PAPER = '#f4efe4';
-export const INK = '#1f2a33';
 export const HOVER = '#f2e6c2';
 /** A selected piece turns pale paper-white: unlike every family colour, whatever its hue. */
 export const SELECTED = '#fbf3d5';
 export const PROBLEM = '#b3261e';
-
-export function familyColour(index: number): string {
-  return FAMILY_COLOURS[((index % FAMILY_COLOURS.length) + FAMILY_COLOURS.length) % FAMILY_COLOURS.length];
-}
 
 /** Marker shapes of the joint overlay: the shape carries the kind, colour only repeats it. */
 export type MarkerShape = 'square' | 'triangle' | 'cross' | 'circle' | 'bar';
