@@ -32,7 +32,7 @@ export const THUMBNAIL_HEIGHT = 240;
 export const THUMBNAIL_RENDERER_VERSION = 1;
 
 /** The viewer's opening view direction (from the model's centre towards the eye). */
-export const THUMBNAIL_DIRECTION: Vec3 = normalize([0.62, -0.78, 0.48]);
+export const THUMBNAIL_DIRECTION: Vec3 = /* @__PURE__ */ normalize([0.62, -0.78, 0.48]);
 
 export interface ThumbnailOptions {
   readonly width?: number;

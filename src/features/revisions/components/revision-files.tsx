@@ -1,5 +1,6 @@
 import { useEffect, useMemo, useState } from 'react';
 import type { RevisionDetail } from '../../../../shared/api/revisions.js';
+import { isModelThumbnailFileName } from '../../../../shared/engine/thumbnail.js';
 import { buttonClasses } from '../../../components/ui/button.js';
 import { formatBytes } from '../../../components/ui/file-field.js';
 import { revisionTemplateUrl } from '../api/get-revision.js';
@@ -63,7 +64,8 @@ export function RevisionDownloads({ revision }: { revision: RevisionDetail }) {
 /** Thumbnails of the photos of the built piece, each linking to the full photo. */
 export function PhotoThumbnails({ revision }: { revision: RevisionDetail }) {
   const photos = revision.files.filter((f) => f.role === 'photo');
-  const thumbs = revision.files.filter((f) => f.role === 'thumbnail');
+  // The model's own picture is a thumbnail file too (server/thumbnails); it is no photo.
+  const thumbs = revision.files.filter((f) => f.role === 'thumbnail' && !isModelThumbnailFileName(f.originalName));
   const [broken, setBroken] = useState<Set<number>>(new Set());
   if (photos.length === 0 && thumbs.length === 0) return <p className="text-sm text-ink-soft">No photos with this revision.</p>;
   const pairs = (photos.length ? photos : thumbs).map((p, i) => ({ photo: p, thumb: thumbs[i] ?? p }));
