@@ -1,13 +1,14 @@
 import { useQuery, type QueryClient } from '@tanstack/react-query';
-import { lazy, Suspense, useCallback, useMemo, useState } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import { Link, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { AuditStateBadge } from '../../components/ui/audit-state-badge.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { QueryView } from '../../components/ui/query-view.js';
-import { Spinner } from '../../components/ui/spinner.js';
 import { useMe } from '../../features/auth/api/get-me.js';
 import { briefQueryOptions } from '../../features/briefs/api/get-brief.js';
+import { revisionPinsQueryOptions } from '../../features/pins/api/get-revision-pins.js';
+import { RevisionCritique } from '../../features/pins/components/revision-critique.js';
 import { auditPollInterval } from '../../features/revisions/api/audit-polling.js';
 import { historyQueryOptions, useHistory } from '../../features/revisions/api/get-submission.js';
 import { revisionQueryOptions, useRevision } from '../../features/revisions/api/get-revision.js';
@@ -21,9 +22,6 @@ import { formatDateTime } from '../../lib/format.js';
 import { useDocumentTitle } from '../../lib/use-document-title.js';
 import { parseIdParam } from './route-params.js';
 
-// three.js and the viewer load only when a revision's model is shown.
-const ModelViewer = lazy(() => import('../../features/viewer/components/model-viewer.js'));
-
 export function makeLoader(queryClient: QueryClient) {
   return async ({ params }: LoaderFunctionArgs) => {
     const revisionId = parseIdParam(params.revisionId, 'revision', '/revisions/1');
@@ -32,6 +30,8 @@ export function makeLoader(queryClient: QueryClient) {
       queryClient.ensureQueryData(studioQueryOptions(revision.studioId)),
       queryClient.ensureQueryData(historyQueryOptions(revision.submissionId)),
       queryClient.ensureQueryData(briefQueryOptions(revision.briefId)),
+      // The pins may not load (a server without them yet); the page then shows the list's error.
+      queryClient.ensureQueryData(revisionPinsQueryOptions(revisionId)),
     ]);
     return null;
   };
@@ -58,6 +58,7 @@ export function Component() {
     [revision.id],
   );
   const onClearFocus = useCallback(() => setShown(null), []);
+  const critiqueViewer = useMemo(() => (me ? { id: me.id, name: me.name, role: studio.myRole } : null), [me, studio.myRole]);
 
   return (
     <div className="space-y-8">
@@ -100,14 +101,13 @@ export function Component() {
       </Card>
 
       <Card aria-labelledby="model-heading">
-        <CardHeader id="model-heading" title="Model" description="Every piece as a slab of the material, coloured by family, with the audit's joints." />
-        {report ? (
-          <Suspense fallback={<Spinner label="Loading the 3-D viewer…" />}>
-            <ModelViewer design={revision.design} joints={report.joints} groups={report.groups} focus={focus} onClearFocus={onClearFocus} />
-          </Suspense>
-        ) : (
-          <p className="text-sm text-ink-soft">{audit.state === 'failed' ? 'The model is shown once an audit succeeds.' : 'The model appears when the audit is done.'}</p>
-        )}
+        <CardHeader
+          id="model-heading"
+          title="Model and pins"
+          description="Every piece as a slab of the material, coloured by family, with the audit's joints; critics' pins and their threads beside it."
+        />
+        {audit.state === 'failed' && !report ? <p className="mb-3 text-sm text-ink-soft">The model is shown once an audit succeeds.</p> : null}
+        <RevisionCritique revision={revision} report={report} viewer={critiqueViewer} focus={focus} onClearFocus={onClearFocus} />
       </Card>
 
       {report ? (

@@ -17,7 +17,7 @@ import {
 } from 'three';
 import { mergeGeometries } from 'three/examples/jsm/utils/BufferGeometryUtils.js';
 import type { SceneJoint } from '../../../../shared/engine/scene.js';
-import { JOINT_STYLES, PROBLEM, type MarkerShape, jointStyle } from '../palette.js';
+import { DIM_TOWARDS_PAPER, JOINT_STYLES, PAPER, PROBLEM, type MarkerShape, jointStyle } from '../palette.js';
 
 export interface JointOverlayProps {
   joints: readonly SceneJoint[];
@@ -25,6 +25,8 @@ export interface JointOverlayProps {
   size: number;
   /** Joints of the selected piece are drawn larger. */
   emphasis: ReadonlySet<number>;
+  /** Joints whose pieces are dimmed (a finding is shown): their lines and markers fade the same way. */
+  dimmed?: ReadonlySet<number> | null;
 }
 
 function markerGeometry(shape: MarkerShape): BufferGeometry {
@@ -45,22 +47,30 @@ function markerGeometry(shape: MarkerShape): BufferGeometry {
 const noRaycast = () => null;
 
 /** Joint lines (one draw call), one instanced marker per joint kind, and a ring on every problem joint. */
-export function JointOverlay({ joints, size, emphasis }: JointOverlayProps) {
+export function JointOverlay({ joints, size, emphasis, dimmed = null }: JointOverlayProps) {
   const invalidate = useThree((s) => s.invalidate);
   const lines = useMemo(() => {
     const g = new BufferGeometry();
     const pos = new Float32Array(joints.length * 6);
-    const col = new Float32Array(joints.length * 6);
-    const c = new Color();
-    joints.forEach((j, i) => {
-      pos.set([...j.from, ...j.to], 6 * i);
-      c.set(!j.orthogonal || j.locked ? PROBLEM : (jointStyle(j.kind)?.colour ?? '#2a3640'));
-      col.set([c.r, c.g, c.b, c.r, c.g, c.b], 6 * i);
-    });
     g.setAttribute('position', new BufferAttribute(pos, 3));
-    g.setAttribute('color', new BufferAttribute(col, 3));
+    g.setAttribute('color', new BufferAttribute(new Float32Array(joints.length * 6), 3));
+    joints.forEach((j, i) => pos.set([...j.from, ...j.to], 6 * i));
     return g;
   }, [joints]);
+  // Colours apart from positions, so a change of focus only rewrites the colour buffer.
+  useLayoutEffect(() => {
+    const attr = lines.getAttribute('color') as BufferAttribute;
+    const col = attr.array as Float32Array;
+    const c = new Color();
+    const paper = new Color(PAPER);
+    joints.forEach((j, i) => {
+      c.set(!j.orthogonal || j.locked ? PROBLEM : (jointStyle(j.kind)?.colour ?? '#2a3640'));
+      if (dimmed?.has(j.index)) c.lerp(paper, DIM_TOWARDS_PAPER);
+      col.set([c.r, c.g, c.b, c.r, c.g, c.b], 6 * i);
+    });
+    attr.needsUpdate = true;
+    invalidate();
+  }, [lines, joints, dimmed, invalidate]);
   const lineMaterial = useMemo(() => new LineBasicMaterial({ vertexColors: true, depthTest: false, transparent: true }), []);
   const markerMaterial = useMemo(() => new MeshBasicMaterial({ depthTest: false, transparent: true, opacity: 0.95 }), []);
   const kinds = useMemo(
@@ -94,9 +104,9 @@ export function JointOverlay({ joints, size, emphasis }: JointOverlayProps) {
     <group>
       <lineSegments geometry={lines} material={lineMaterial} renderOrder={10} raycast={noRaycast} frustumCulled={false} />
       {kinds.map((k) => (
-        <Markers key={k.style.kind} joints={k.joints} geometry={k.geometry} material={markerMaterial} size={size} emphasis={emphasis} colour={k.style.colour} invalidate={invalidate} />
+        <Markers key={k.style.kind} joints={k.joints} geometry={k.geometry} material={markerMaterial} size={size} emphasis={emphasis} dimmed={dimmed} colour={k.style.colour} invalidate={invalidate} />
       ))}
-      {problems.length ? <Markers joints={problems} geometry={ring} material={markerMaterial} size={size} emphasis={emphasis} colour={PROBLEM} invalidate={invalidate} /> : null}
+      {problems.length ? <Markers joints={problems} geometry={ring} material={markerMaterial} size={size} emphasis={emphasis} dimmed={dimmed} colour={PROBLEM} invalidate={invalidate} /> : null}
     </group>
   );
 }
@@ -107,17 +117,18 @@ interface MarkersProps {
   material: MeshBasicMaterial;
   size: number;
   emphasis: ReadonlySet<number>;
+  dimmed: ReadonlySet<number> | null;
   colour: string;
   invalidate(): void;
 }
 
-function Markers({ joints, geometry, material, size, emphasis, colour, invalidate }: MarkersProps) {
+function Markers({ joints, geometry, material, size, emphasis, dimmed, colour, invalidate }: MarkersProps) {
   const ref = useRef<InstancedMesh>(null);
-  const scratch = useMemo(() => ({ m: new Matrix4(), q: new Quaternion(), p: new Vector3(), d: new Vector3(), s: new Vector3(), z: new Vector3(0, 0, 1), c: new Color() }), []);
+  const scratch = useMemo(() => ({ m: new Matrix4(), q: new Quaternion(), p: new Vector3(), d: new Vector3(), s: new Vector3(), z: new Vector3(0, 0, 1), c: new Color(), paper: new Color(PAPER) }), []);
   useLayoutEffect(() => {
     const im = ref.current;
     if (!im) return;
-    const { m, q, p, d, s, z, c } = scratch;
+    const { m, q, p, d, s, z, c, paper } = scratch;
     joints.forEach((j, i) => {
       p.set((j.from[0] + j.to[0]) / 2, (j.from[1] + j.to[1]) / 2, (j.from[2] + j.to[2]) / 2);
       d.set(j.to[0] - j.from[0], j.to[1] - j.from[1], j.to[2] - j.from[2]);
@@ -128,11 +139,12 @@ function Markers({ joints, geometry, material, size, emphasis, colour, invalidat
       m.compose(p, q, s);
       im.setMatrixAt(i, m);
       c.set(!j.orthogonal ? PROBLEM : colour);
+      if (dimmed?.has(j.index)) c.lerp(paper, DIM_TOWARDS_PAPER);
       im.setColorAt(i, c);
     });
     im.instanceMatrix.needsUpdate = true;
     if (im.instanceColor) im.instanceColor.needsUpdate = true;
     invalidate();
-  }, [joints, size, emphasis, colour, scratch, invalidate]);
+  }, [joints, size, emphasis, dimmed, colour, scratch, invalidate]);
   return <instancedMesh ref={ref} args={[geometry, material, joints.length]} renderOrder={11} raycast={noRaycast} frustumCulled={false} />;
 }

@@ -1,14 +1,24 @@
 import { OrbitControls } from '@react-three/drei';
 import { Canvas, useFrame, useThree } from '@react-three/fiber';
-import { Component as ReactComponent, type ReactNode, type RefObject, useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { Component as ReactComponent, type KeyboardEvent, type ReactNode, type RefObject, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { PerspectiveCamera, Plane, Vector3 } from 'three';
+import type { CameraView } from '../../../../shared/api/critique.js';
 import { parseDesign } from '../../../../shared/engine/design.js';
-import { type Scene, type SceneInstance, type Sphere, piecesSphere, rankGroups, sceneOfDesign, usableGroups, usableJoints } from '../../../../shared/engine/scene.js';
+import { toFrame } from '../../../../shared/engine/frames.js';
+import type { Piece } from '../../../../shared/engine/model.js';
+import { buildPieces } from '../../../../shared/engine/pieces.js';
+import { type PinAnchor, anchorAt, orbitAnchors, pinWorldPosition } from '../../../../shared/engine/pins.js';
+import { type Scene, type SceneInstance, type Sphere, buildScene, piecesSphere, rankGroups, usableGroups, usableJoints } from '../../../../shared/engine/scene.js';
+import type { Vec3 } from '../../../../shared/engine/vec.js';
 import { Button } from '../../../components/ui/button.js';
 import { EmptyState } from '../../../components/ui/empty-state.js';
 import { FAMILY_COLOURS, JOINT_STYLES, LOOSE_GROUP_COLOURS, PAPER, familyColour, groupColour } from '../palette.js';
 import { JointOverlay } from './joint-overlay.js';
 import { PieceInstances } from './piece-instances.js';
+import { PinMarkerLayer } from './pin-marker-layer.js';
+import { type MarkerPoint, MarkerProjector, type ViewerPin } from './pin-markers.js';
+
+export type { ViewerPin } from './pin-markers.js';
 
 export interface ModelViewerProps {
   /** The design document as the revision API returns it. */
@@ -27,6 +37,37 @@ export interface ModelViewerProps {
   focus?: ViewerFocus | null;
   /** Called by the Clear control next to a focus; the caller sets `focus` back to null. */
   onClearFocus?: () => void;
+  /** Critics' pins drawn on the model, and placing new ones; null or absent: no pins. */
+  pins?: ViewerPins | null;
+  /** `beside` (default): piece details to the right of the model; `stacked`: below it. */
+  layout?: 'beside' | 'stacked';
+  /** A lower canvas, for pages that show more next to the model. */
+  compact?: boolean;
+}
+
+/** Where a pin is being placed: its anchor, the camera it was placed through and its motif's size. */
+export interface PlacedPin {
+  readonly anchor: PinAnchor;
+  readonly camera: CameraView;
+  /** Pieces the pin would sit on as an orbit pin (1: the motif has a single piece). */
+  readonly orbitSize: number;
+}
+
+/** The pins the viewer draws and what it reports back. */
+export interface ViewerPins {
+  readonly pins: readonly ViewerPin[];
+  /** Key of the pin whose marker is highlighted, or null. */
+  readonly selected: string | null;
+  onSelect(key: string): void;
+  /** Placing is allowed at all: Enter on a piece chosen by keyboard and the "Pin this piece" button place a pin. */
+  readonly canPlace: boolean;
+  /** Place-a-pin mode: the next click on a piece places a pin where it hit. */
+  readonly placing: boolean;
+  onPlace(placed: PlacedPin): void;
+  /** The pin being written (drawn as a dashed marker), or null. */
+  readonly draft: PinAnchor | null;
+  /** A saved view to fly to; a new `key` flies again. */
+  readonly view: { readonly key: number; readonly camera: CameraView } | null;
 }
 
 /** What the viewer is asked to show: some pieces and a label naming them. */
@@ -43,7 +84,7 @@ function prefersReducedMotion(): boolean {
   return typeof window !== 'undefined' && typeof window.matchMedia === 'function' && window.matchMedia('(prefers-reduced-motion: reduce)').matches;
 }
 
-type SceneResult = { ok: true; scene: Scene } | { ok: false; message: string };
+type SceneResult = { ok: true; scene: Scene; pieces: readonly Piece[] } | { ok: false; message: string };
 
 function computeScene(design: unknown, joints: readonly unknown[]): SceneResult {
   const parsed = parseDesign(design);
@@ -52,7 +93,8 @@ function computeScene(design: unknown, joints: readonly unknown[]): SceneResult 
     return { ok: false, message: `The design could not be read (${first ? `${first.path || 'document'}: ${first.message}` : 'unknown problem'}).` };
   }
   try {
-    return { ok: true, scene: sceneOfDesign(parsed.design, usableJoints(joints)) };
+    const build = buildPieces(parsed.design);
+    return { ok: true, scene: buildScene(parsed.design, build, usableJoints(joints)), pieces: build.pieces };
   } catch (e) {
     return { ok: false, message: `The model could not be built from this design (${e instanceof Error ? e.message : String(e)}).` };
   }
@@ -101,7 +143,7 @@ interface Flight {
  * the first frame jump; a new goal (or clearing it) flies there over {@link FLIGHT_MS}, looking
  * from where the camera is now. The flight only mutates the camera and controls in `useFrame`.
  */
-function CameraRig({ scene, fitKey, goal }: { scene: Scene; fitKey: number; goal: Sphere | null }) {
+function CameraRig({ scene, fitKey, goal, view }: { scene: Scene; fitKey: number; goal: Sphere | null; view: ViewerPins['view'] }) {
   const camera = useThree((s) => s.camera);
   const controls = useThree((s) => s.controls) as unknown as { target: Vector3; update(): void } | null;
   const invalidate = useThree((s) => s.invalidate);
@@ -143,6 +185,28 @@ function CameraRig({ scene, fitKey, goal }: { scene: Scene; fitKey: number; goal
     invalidate();
     // fitKey only re-runs the framing.
   }, [camera, controls, scene, fitKey, goal, invalidate]);
+  // A saved view (a pin's camera): fly from where the camera is to exactly that position and target.
+  useEffect(() => {
+    if (!view || !(camera instanceof PerspectiveCamera)) return;
+    const to = new Vector3(...view.camera.position);
+    const toTarget = new Vector3(...view.camera.target);
+    const dist = Math.max(to.distanceTo(toTarget), 1e-3);
+    camera.near = Math.max(0.05, Math.min(camera.near, dist / 200));
+    camera.far = Math.max(camera.far, dist * 20, scene.radius * 40);
+    camera.updateProjectionMatrix();
+    if (prefersReducedMotion()) {
+      flight.current = null;
+      camera.position.copy(to);
+      camera.lookAt(toTarget);
+      if (controls) {
+        controls.target.copy(toTarget);
+        controls.update();
+      }
+    } else {
+      flight.current = { from: camera.position.clone(), fromTarget: controls ? controls.target.clone() : toTarget.clone(), to, toTarget, start: performance.now() };
+    }
+    invalidate();
+  }, [camera, controls, view, scene, invalidate]);
   useFrame(() => {
     const f = flight.current;
     if (!f) return;
@@ -162,6 +226,22 @@ function CameraRig({ scene, fitKey, goal }: { scene: Scene; fitKey: number; goal
   return null;
 }
 
+/** Lets the page outside the canvas read the camera (position and orbit target) when it needs it. */
+function CameraReader({ target }: { target: RefObject<(() => CameraView) | null> }) {
+  const camera = useThree((s) => s.camera);
+  const controls = useThree((s) => s.controls) as unknown as { target: Vector3 } | null;
+  useEffect(() => {
+    target.current = () => {
+      const t = controls?.target ?? new Vector3(0, 0, 0);
+      return { position: [camera.position.x, camera.position.y, camera.position.z], target: [t.x, t.y, t.z] };
+    };
+    return () => {
+      target.current = null;
+    };
+  }, [camera, controls, target]);
+  return null;
+}
+
 /** Renders each frame itself so it can read the renderer's counters after drawing. */
 function RenderProbe({ target }: { target: RefObject<HTMLDivElement | null> }) {
   useFrame((state) => {
@@ -175,7 +255,7 @@ function RenderProbe({ target }: { target: RefObject<HTMLDivElement | null> }) {
  * The 3-D model of a revision: every piece as a slab of the material, one instanced mesh per
  * template, coloured by family, with the audit's joints drawn by kind (shape and colour).
  */
-export default function ModelViewer({ design, joints, groups, focus = null, onClearFocus }: ModelViewerProps) {
+export default function ModelViewer({ design, joints, groups, focus = null, onClearFocus, pins = null, layout = 'beside', compact = false }: ModelViewerProps) {
   const result = useMemo(() => computeScene(design, joints), [design, joints]);
   const [webgl] = useState(webglAvailable);
   if (!result.ok) {
@@ -197,12 +277,25 @@ export default function ModelViewer({ design, joints, groups, focus = null, onCl
   }
   return (
     <ViewerBoundary>
-      <ViewerBody scene={result.scene} groups={groups} focus={focus} onClearFocus={onClearFocus} />
+      <ViewerBody scene={result.scene} pieces={result.pieces} groups={groups} focus={focus} onClearFocus={onClearFocus} pins={pins} layout={layout} compact={compact} />
     </ViewerBoundary>
   );
 }
 
-function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; groups: unknown; focus: ViewerFocus | null; onClearFocus?: () => void }) {
+const NO_PIN_POINTS: readonly MarkerPoint[] = [];
+
+interface ViewerBodyProps {
+  scene: Scene;
+  pieces: readonly Piece[];
+  groups: unknown;
+  focus: ViewerFocus | null;
+  onClearFocus?: () => void;
+  pins: ViewerPins | null;
+  layout: 'beside' | 'stacked';
+  compact: boolean;
+}
+
+function ViewerBody({ scene, pieces, groups, focus, onClearFocus, pins, layout, compact }: ViewerBodyProps) {
   const [hovered, setHovered] = useState<string | null>(null);
   const [selected, setSelected] = useState<string | null>(null);
   const [explode, setExplode] = useState(0);
@@ -227,6 +320,10 @@ function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; grou
     for (const mesh of scene.meshes) for (const inst of mesh.instances) m.set(inst.piece, inst);
     return m;
   }, [scene]);
+  const pieceById = useMemo(() => new Map(pieces.map((p) => [p.id, p])), [pieces]);
+  const pieceOrder = useMemo(() => pieces.map((p) => p.id), [pieces]);
+  const cameraOf = useRef<(() => CameraView) | null>(null);
+  const markerEls = useRef(new Map<string, HTMLElement>());
   const jointsOf = useMemo(() => {
     const m = new Map<string, number[]>();
     for (const j of scene.joints) {
@@ -242,14 +339,111 @@ function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; grou
   // A horizontal cutting plane: everything above the chosen height is cut away.
   const clip = useMemo(() => (cutOn ? new Plane(new Vector3(0, 0, -1), scene.center[2] + cut * scene.radius) : null), [cutOn, cut, scene]);
   const explodeMm = explode * scene.radius * 0.4;
+  // Joints whose pieces are both dimmed by the focus are dimmed with them.
+  const dimmedJoints = useMemo(() => {
+    if (!focusSet) return null;
+    const out = new Set<number>();
+    for (const j of scene.joints) if (!focusSet.has(j.a) && !focusSet.has(j.b) && j.a !== selected && j.b !== selected) out.add(j.index);
+    return out;
+  }, [focusSet, scene, selected]);
+  // Pin anchors (with an orbit pin's copies) change only with the pins; positions also with the explode.
+  const pinAnchors = useMemo(
+    () => (pins?.pins ?? []).map((pin) => ({ pin, copies: pin.scope === 'orbit' ? orbitAnchors(pieces, pin.anchor).slice(1) : [] })),
+    [pins?.pins, pieces],
+  );
+  const draft = pins?.draft ?? null;
+  const markerPoints = useMemo(() => {
+    if (!pins) return NO_PIN_POINTS;
+    const at = (anchor: PinAnchor | ViewerPin['anchor']): Vec3 | null => {
+      const piece = pieceById.get(anchor.piece);
+      if (!piece) return null;
+      const p = pinWorldPosition(piece.frame, anchor, scene.thickness);
+      const e = instances.get(anchor.piece)?.explode ?? [0, 0, 0];
+      return [p[0] + e[0] * explodeMm, p[1] + e[1] * explodeMm, p[2] + e[2] * explodeMm];
+    };
+    const out: MarkerPoint[] = [];
+    for (const { pin, copies } of pinAnchors) {
+      copies.forEach((c, i) => {
+        const position = at(c);
+        if (position) out.push({ key: `${pin.key}~${i}`, kind: 'copy', position });
+      });
+    }
+    for (const { pin } of pinAnchors) {
+      const position = at(pin.anchor);
+      if (position) out.push({ key: pin.key, kind: 'pin', position, pin });
+    }
+    if (draft) {
+      const position = at(draft);
+      if (position) out.push({ key: 'draft', kind: 'draft', position });
+    }
+    return out;
+  }, [pins, pinAnchors, draft, pieceById, instances, scene.thickness, explodeMm]);
+  const placePin = useCallback(
+    (anchor: PinAnchor) => {
+      if (!pins) return;
+      const camera = cameraOf.current?.() ?? { position: [0, -1, 0], target: [0, 0, 0] };
+      pins.onPlace({ anchor, camera, orbitSize: Math.max(1, orbitAnchors(pieces, anchor).length) });
+    },
+    [pins, pieces],
+  );
+  /** A pin on the chosen piece without a pointer: its centroid, on the face along the normal. */
+  const placeAtCentroid = useCallback(
+    (id: string) => {
+      const piece = pieceById.get(id);
+      const inst = instances.get(id);
+      if (!piece || !inst) return;
+      placePin({ piece: id, point: toFrame(piece.frame, inst.centroid), side: 1 });
+    },
+    [pieceById, instances, placePin],
+  );
   const markerSize = Math.max(scene.thickness * 1.2, scene.radius * 0.012);
   const onHover = useCallback((p: string | null) => setHovered(p), []);
-  const onSelect = useCallback((p: string) => setSelected(p), []);
+  const placing = pins?.placing ?? false;
+  const onSelect = useCallback(
+    (p: string, world: Vec3) => {
+      setSelected(p);
+      if (!placing) return;
+      const piece = pieceById.get(p);
+      if (!piece) return;
+      // The click hit the drawn (maybe exploded) slab: undo the push before anchoring.
+      const e = instances.get(p)?.explode ?? [0, 0, 0];
+      placePin(anchorAt(piece, [world[0] - e[0] * explodeMm, world[1] - e[1] * explodeMm, world[2] - e[2] * explodeMm]));
+    },
+    [placing, pieceById, instances, explodeMm, placePin],
+  );
+  const step = useCallback(
+    (by: number) => {
+      if (pieceOrder.length === 0) return;
+      const at = selected ? pieceOrder.indexOf(selected) : -1;
+      const next = at < 0 ? (by > 0 ? 0 : pieceOrder.length - 1) : (at + by + pieceOrder.length) % pieceOrder.length;
+      setSelected(pieceOrder[next]);
+    },
+    [pieceOrder, selected],
+  );
+  const onFrameKey = useCallback(
+    (e: KeyboardEvent<HTMLDivElement>) => {
+      if (e.target !== e.currentTarget) return;
+      if (e.key === 'ArrowRight' || e.key === 'ArrowDown') {
+        e.preventDefault();
+        step(1);
+      } else if (e.key === 'ArrowLeft' || e.key === 'ArrowUp') {
+        e.preventDefault();
+        step(-1);
+      } else if (e.key === 'Enter' && selected && pins?.canPlace) {
+        e.preventDefault();
+        placeAtCentroid(selected);
+      }
+    },
+    [step, selected, pins?.canPlace, placeAtCentroid],
+  );
   const problemCount = scene.joints.filter((j) => !j.orthogonal || j.locked).length;
   const pointed = selected ?? hovered;
 
+  const pointedIndex = pointed ? pieceOrder.indexOf(pointed) : -1;
+  const stacked = layout === 'stacked';
+
   return (
-    <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_18rem]">
+    <div className={stacked ? 'space-y-4' : 'grid gap-4 lg:grid-cols-[minmax(0,1fr)_18rem]'}>
       <div className="space-y-3">
         <div aria-live="polite" data-testid="viewer-focus">
           {focus ? (
@@ -281,8 +475,13 @@ function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; grou
           data-pieces={scene.pieceCount}
           data-highlighted={highlighted}
           data-group-colours={groupsShown ? ranking.sizes.length : 0}
-          className="relative h-[28rem] overflow-hidden rounded-md border border-rule bg-paper"
-          style={{ cursor: hovered ? 'pointer' : 'grab' }}
+          data-placing={placing ? 'true' : undefined}
+          role="group"
+          aria-label={`Model viewer. Arrow keys step through the pieces${pins?.canPlace ? '; Enter places a pin on the chosen piece' : ''}.`}
+          tabIndex={0}
+          onKeyDown={onFrameKey}
+          className={`relative isolate overflow-hidden rounded-md border bg-paper focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-accent ${compact ? 'h-80' : 'h-[28rem]'} ${placing ? 'border-accent ring-2 ring-accent/40' : 'border-rule'}`}
+          style={{ cursor: placing ? 'crosshair' : hovered ? 'pointer' : 'grab' }}
         >
           <Canvas
             gl={{ preserveDrawingBuffer: true, antialias: true }}
@@ -294,7 +493,7 @@ function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; grou
             }}
             onPointerMissed={() => setSelected(null)}
             role="img"
-            aria-label={`3-D model: ${scene.pieceCount} pieces in ${scene.templateCount} templates`}
+            aria-label={`3-D model: ${scene.pieceCount} pieces in ${scene.templateCount} templates${pins && pins.pins.length ? `, ${pins.pins.length} ${pins.pins.length === 1 ? 'pin' : 'pins'}` : ''}`}
           >
             <color attach="background" args={[PAPER]} />
             <hemisphereLight args={['#fffaf0', '#b8a98c', 1.6]} />
@@ -313,16 +512,48 @@ function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; grou
                 onSelect={onSelect}
               />
             ))}
-            {showJoints && explode === 0 && !cutOn && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} /> : null}
+            {showJoints && explode === 0 && !cutOn && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} dimmed={dimmedJoints} /> : null}
             <OrbitControls makeDefault enableDamping={false} />
-            <CameraRig scene={scene} fitKey={fitKey} goal={goal} />
+            <CameraRig scene={scene} fitKey={fitKey} goal={goal} view={pins?.view ?? null} />
+            <CameraReader target={cameraOf} />
+            {markerPoints.length ? <MarkerProjector points={markerPoints} registry={markerEls} clip={clip} /> : null}
             <RenderProbe target={frame} />
           </Canvas>
+          {markerPoints.length ? <PinMarkerLayer points={markerPoints} registry={markerEls} selected={pins?.selected ?? null} onSelect={pins ? pins.onSelect : () => {}} /> : null}
+          {pointed ? (
+            <p className="pointer-events-none absolute left-2 top-2 rounded-sm border border-rule bg-paper-raised/90 px-2 py-0.5 font-mono text-xs" data-testid="piece-label">
+              {pointed}
+              {pointedIndex >= 0 ? <span className="text-ink-soft"> ({pointedIndex + 1} of {pieceOrder.length})</span> : null}
+            </p>
+          ) : null}
+          {placing ? (
+            <p className="pointer-events-none absolute bottom-2 left-2 rounded-sm border border-accent bg-paper-raised/95 px-2 py-0.5 text-xs">Placing a pin: click a piece (Escape cancels).</p>
+          ) : null}
         </div>
         <div className="flex flex-wrap items-center gap-4 text-sm">
           <Button variant="secondary" size="sm" onClick={() => setFitKey((k) => k + 1)}>
             Fit to view
           </Button>
+          <label className="flex items-center gap-2">
+            <span>Piece</span>
+            <select
+              value={selected ?? ''}
+              onChange={(e) => setSelected(e.target.value || null)}
+              className="h-8 rounded-md border border-rule-strong bg-paper-raised py-1 pl-2 pr-1 font-mono text-sm focus-visible:outline-2 focus-visible:outline-offset-1 focus-visible:outline-accent"
+            >
+              <option value="">None chosen</option>
+              {pieceOrder.map((id) => (
+                <option key={id} value={id}>
+                  {id}
+                </option>
+              ))}
+            </select>
+          </label>
+          {pins?.canPlace && selected ? (
+            <Button variant="secondary" size="sm" onClick={() => placeAtCentroid(selected)}>
+              Pin this piece
+            </Button>
+          ) : null}
           <label className="flex items-center gap-2">
             <span>Exploded view</span>
             <input type="range" min={0} max={1} step={0.01} value={explode} onChange={(e) => setExplode(Number(e.target.value))} className="w-40 accent-[#1b5e73]" />
@@ -346,11 +577,12 @@ function ViewerBody({ scene, groups, focus, onClearFocus }: { scene: Scene; grou
             </label>
           ) : null}
           <span className="text-ink-soft">
-            Drag to turn, scroll to zoom, right-drag to pan.{(explode > 0 || cutOn) && showJoints ? ' Joints show when the pieces are together and uncut.' : ''}
+            Drag to turn, scroll to zoom, right-drag to pan; with the model focused, arrow keys step through the pieces.
+            {(explode > 0 || cutOn) && showJoints ? ' Joints show when the pieces are together and uncut.' : ''}
           </span>
         </div>
       </div>
-      <aside aria-label="Piece details" className="space-y-4 text-sm">
+      <aside aria-label="Piece details" className={stacked ? 'grid items-start gap-4 text-sm sm:grid-cols-2' : 'space-y-4 text-sm'}>
         <PiecePanel scene={scene} piece={pointed} instance={pointed ? instances.get(pointed) : undefined} joints={pointed ? (jointsOf.get(pointed) ?? []) : []} pinned={selected !== null} />
         {groupsShown ? <GroupLegend sizes={ranking.sizes} /> : null}
         <Legend scene={scene} problemCount={problemCount} />

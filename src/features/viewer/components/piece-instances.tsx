@@ -2,6 +2,7 @@ import { useThree, type ThreeEvent } from '@react-three/fiber';
 import { useLayoutEffect, useMemo, useRef } from 'react';
 import { BufferAttribute, BufferGeometry, Color, DoubleSide, type InstancedMesh, Matrix4, MeshStandardMaterial, type Plane } from 'three';
 import type { SceneMesh } from '../../../../shared/engine/scene.js';
+import type { Vec3 } from '../../../../shared/engine/vec.js';
 import { DIM_TOWARDS_PAPER, HOVER, PAPER, SELECTED, familyColour, groupColour } from '../palette.js';
 
 export interface PieceInstancesProps {
@@ -17,7 +18,8 @@ export interface PieceInstancesProps {
   /** Rank of each piece's connected group when colouring by group, else null (family colours). */
   groupOf: ReadonlyMap<string, number> | null;
   onHover(piece: string | null): void;
-  onSelect(piece: string): void;
+  /** A click on a piece, with the world point it hit (on the drawn, possibly exploded slab). */
+  onSelect(piece: string, point: Vec3): void;
 }
 
 /** One template's slab drawn once for all its pieces (one draw call). */
@@ -94,7 +96,7 @@ export function PieceInstances({ mesh, explode, clip, hovered, selected, highlig
         if (clip && clip.distanceToPoint(e.point) < 0) return;
         e.stopPropagation();
         const p = pieceAt(e);
-        if (p) onSelect(p);
+        if (p) onSelect(p, [e.point.x, e.point.y, e.point.z]);
       }}
     />
   );
