@@ -7,6 +7,7 @@ import helmet from 'helmet';
 import { adminRouter } from './admin/router.js';
 import { authRouter, SESSION_COOKIE } from './auth/router.js';
 import { briefsRouter } from './briefs/router.js';
+import { critiqueRouter } from './critique/router.js';
 import { createPassport } from './auth/passport.js';
 import { authService } from './auth/service.js';
 import { createSessionStore } from './auth/session-store.js';
@@ -91,6 +92,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/materials', materialsRouter(ctx, registry));
   app.use('/api', briefsRouter(ctx, registry));
   app.use('/api', revisionsRouter(ctx, registry));
+  app.use('/api', critiqueRouter(ctx, registry));
   app.use('/api/me', notificationsRouter(ctx, registry));
   app.use('/api', apiNotFound());
 

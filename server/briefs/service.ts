@@ -347,7 +347,9 @@ export function briefsService(ctx: AppContext) {
         .prepare(
           `SELECT s.id AS submission_id, u.id AS user_id, u.name, u.email,
                   (SELECT COUNT(*) FROM revisions WHERE submission_id = s.id) AS revisions,
-                  r.id AS revision_id, r.number, r.created_at, r.late, a.state, a.errors, a.warnings, a.figures
+                  r.id AS revision_id, r.number, r.created_at, r.late, a.state, a.errors, a.warnings, a.figures,
+                  (SELECT released_at FROM feedback WHERE submission_id = s.id) AS released_at,
+                  (EXISTS (SELECT 1 FROM pins WHERE submission_id = s.id) OR EXISTS (SELECT 1 FROM score_sheets WHERE submission_id = s.id)) AS critiqued
              FROM submissions s JOIN users u ON u.id = s.participant_id
              LEFT JOIN revisions r ON r.submission_id = s.id AND r.number = (SELECT MAX(number) FROM revisions WHERE submission_id = s.id)
              LEFT JOIN audits a ON a.revision_id = r.id
@@ -368,6 +370,8 @@ export function briefsService(ctx: AppContext) {
         errors: number | null;
         warnings: number | null;
         figures: string | null;
+        released_at: string | null;
+        critiqued: number;
       }[];
       const critics = db
         .prepare(
@@ -393,7 +397,7 @@ export function briefsService(ctx: AppContext) {
           components: figures?.components ?? null,
           sheets: figures?.sheets ?? null,
           late: r.late === 1,
-          critiqueState: 'not-started',
+          critiqueState: r.released_at !== null ? 'released' : r.critiqued ? 'in-progress' : 'not-started',
           critics: mine.map((c) => ({ id: c.id, name: c.name })),
         };
         if (query.state && row.auditState !== query.state) continue;
@@ -404,10 +408,39 @@ export function briefsService(ctx: AppContext) {
       return out;
     },
 
-    /** The marks and audit figures of every submission as CSV (rubric columns stay empty until marks exist). */
+    /**
+     * The marks and audit figures of every submission as CSV: per rubric criterion the
+     * instructor's own score (an instructor's or admin's sheet), else the mean of the critics'
+     * scores, blank when nobody scored it; then the final mark and whether it was released.
+     */
     async exportCsv(actor: Actor, briefId: number): Promise<{ filename: string; csv: string }> {
       const b = await this.get(actor, briefId);
       const rows = await this.submissions(actor, briefId, {});
+      const db = rawDb(ds);
+      const sheets = db
+        .prepare(
+          `SELECT ss.submission_id, ss.scores, COALESCE(m.role, CASE WHEN u.global_role = 'admin' THEN 'admin' END) AS role
+             FROM score_sheets ss JOIN submissions s ON s.id = ss.submission_id JOIN users u ON u.id = ss.scorer_id
+             LEFT JOIN memberships m ON m.user_id = ss.scorer_id AND m.studio_id = ?
+            WHERE s.brief_id = ?`,
+        )
+        .all(b.studioId, briefId) as { submission_id: number; scores: string; role: string | null }[];
+      const marks = new Map(
+        (db.prepare('SELECT f.submission_id, f.final_mark, f.released_at FROM feedback f JOIN submissions s ON s.id = f.submission_id WHERE s.brief_id = ?').all(briefId) as {
+          submission_id: number;
+          final_mark: number | null;
+          released_at: string | null;
+        }[]).map((f) => [f.submission_id, f]),
+      );
+      const mean = (xs: number[]): number | null => (xs.length === 0 ? null : Math.round((xs.reduce((a, x) => a + x, 0) / xs.length) * 100) / 100);
+      const criterionCell = (submissionId: number, criterion: string): number | null => {
+        const of = (roles: string[]) =>
+          sheets
+            .filter((sh) => sh.submission_id === submissionId && sh.role !== null && roles.includes(sh.role))
+            .flatMap((sh) => (JSON.parse(sh.scores) as { criterion: string; score: number }[]).filter((x) => x.criterion === criterion).map((x) => x.score));
+        const own = of(['instructor', 'admin']);
+        return own.length > 0 ? mean(own) : mean(of(['critic']));
+      };
       const header = [
         'Participant',
         'E-mail',
@@ -423,7 +456,8 @@ export function briefsService(ctx: AppContext) {
         'Sheets',
         'Critique state',
         ...b.rubric.map((c) => `${c.criterion} (weight ${c.weight})`),
-        'Total mark',
+        'Final mark',
+        'Feedback released',
       ];
       const body = rows.map((r) => [
         r.participant.name,
@@ -439,8 +473,9 @@ export function briefsService(ctx: AppContext) {
         r.components,
         r.sheets,
         r.critiqueState,
-        ...b.rubric.map(() => null),
-        null,
+        ...b.rubric.map((c) => criterionCell(r.submissionId, c.id)),
+        marks.get(r.submissionId)?.final_mark ?? null,
+        marks.get(r.submissionId)?.released_at ? 'yes' : 'no',
       ]);
       const filename = `${b.title.replace(/[^A-Za-z0-9_-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60) || 'brief'}-submissions.csv`;
       return { filename, csv: toCsv(header, body) };

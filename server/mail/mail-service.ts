@@ -9,6 +9,15 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  /** Files to attach; one with a `cid` is shown inline where the HTML names `cid:<cid>`. */
+  attachments?: MailAttachment[];
+}
+
+export interface MailAttachment {
+  filename: string;
+  content: Buffer;
+  contentType: string;
+  cid?: string;
 }
 
 export interface MailService {

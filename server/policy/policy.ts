@@ -25,6 +25,16 @@
  *   the brief's gallery; a critic only those assigned to them; instructors every submission in
  *   their studios; admins all. Only participants of the studio (and admins, who may do anything)
  *   submit revisions, and only to a brief that is not a draft. A failed audit is retried by its owner or an instructor.
+ * - Critique: whoever may see a submission sees its pins. Pins are placed by the studio's
+ *   instructors and by critics assigned to the submission (never by other critics or by
+ *   participants). The thread is open to those and to the submission's participant, who may
+ *   also resolve or reopen a pin; a pin's category is changed only by its author or an
+ *   instructor. Pin-ups (critique sessions) are seen by members who may see the brief (each
+ *   entry then filtered by the submission rule) and run by instructors. Rubric scores are
+ *   entered by instructors and assigned critics (each their own sheet); the final mark, the
+ *   summary and the release are the instructor's. Feedback is read by instructors, the
+ *   assigned critics and the participant it is for (the service shows the participant
+ *   nothing but "not released" until it is).
  */
 import type { BriefState } from '../../shared/api/briefs.js';
 import type { GlobalRole, StudioRole } from '../../shared/api/roles.js';
@@ -65,6 +75,17 @@ export const ACTIONS = [
   'submission.critics.manage',
   'revision.retry',
   'notifications.manage',
+  'pin.list',
+  'pin.create',
+  'pin.reply',
+  'pin.update',
+  'pin.categorize',
+  'pinup.list',
+  'pinup.view',
+  'pinup.manage',
+  'feedback.view',
+  'feedback.score',
+  'feedback.mark',
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -79,6 +100,8 @@ export interface Resource {
   /** For a submission: its participant and the critics assigned to it. */
   ownerId?: number;
   criticIds?: readonly number[];
+  /** For a pin: who placed it (`pin.categorize`). */
+  authorId?: number | null;
 }
 
 export type Decision = { allowed: true } | { allowed: false; status: 401 | 403; message: string };
@@ -156,7 +179,8 @@ export function decide(actor: Actor | null, action: Action, resource: Resource =
       if (role !== 'participant') return deny('Only participants of this studio submit revisions.');
       return resource.briefState === 'draft' ? deny('This brief is a draft; only instructors see it until it is published.') : ALLOW;
     }
-    case 'submission.view': {
+    case 'submission.view':
+    case 'pin.list': {
       const role = studioRole(actor, resource.studioId);
       if (isAdmin(actor) || role === 'instructor') return ALLOW;
       if (role === 'participant' && (resource.ownerId === actor.id || resource.galleryOpen === true)) return ALLOW;
@@ -169,6 +193,50 @@ export function decide(actor: Actor | null, action: Action, resource: Resource =
       if (role === 'participant' && resource.ownerId === actor.id) return ALLOW;
       return deny('Only the participant who submitted it or an instructor can retry this audit.');
     }
+    case 'pin.create':
+    case 'feedback.score': {
+      const role = studioRole(actor, resource.studioId);
+      if (isAdmin(actor) || role === 'instructor') return ALLOW;
+      if (role === 'critic' && (resource.criticIds ?? []).includes(actor.id)) return ALLOW;
+      if (!role) return deny('You are not a member of this studio.');
+      return deny(
+        action === 'pin.create'
+          ? 'Only an instructor or a critic assigned to this submission can place pins.'
+          : 'Only an instructor or a critic assigned to this submission can score it.',
+      );
+    }
+    case 'pin.reply':
+    case 'pin.update':
+    case 'feedback.view': {
+      const role = studioRole(actor, resource.studioId);
+      if (isAdmin(actor) || role === 'instructor') return ALLOW;
+      if (role === 'critic' && (resource.criticIds ?? []).includes(actor.id)) return ALLOW;
+      if (role === 'participant' && resource.ownerId === actor.id) return ALLOW;
+      if (!role) return deny('You are not a member of this studio.');
+      return deny(
+        action === 'feedback.view'
+          ? 'Only the participant, the assigned critics and instructors see this feedback.'
+          : 'Only the participant, the assigned critics and instructors take part in this thread.',
+      );
+    }
+    case 'pin.categorize': {
+      const role = studioRole(actor, resource.studioId);
+      if (isAdmin(actor) || role === 'instructor') return ALLOW;
+      if (resource.authorId != null && resource.authorId === actor.id && role !== null) return ALLOW;
+      return deny('Only the pin\u2019s author or an instructor can change its category.');
+    }
+    case 'pinup.list':
+    case 'pinup.view': {
+      const role = studioRole(actor, resource.studioId);
+      if (isAdmin(actor) || role === 'instructor') return ALLOW;
+      if (!role) return deny('You are not a member of this studio.');
+      return resource.briefState === 'draft' ? deny('This brief is a draft; only instructors see it until it is published.') : ALLOW;
+    }
+    case 'pinup.manage':
+    case 'feedback.mark':
+      return isAdmin(actor) || studioRole(actor, resource.studioId) === 'instructor'
+        ? ALLOW
+        : deny(action === 'pinup.manage' ? 'Only an instructor of this studio runs pin-ups.' : 'Only an instructor of this studio sets and releases the final mark.');
   }
 }
 

@@ -5,6 +5,7 @@ import type { AuditState } from '../../shared/api/briefs.js';
 import type { Audit as AuditDto, AuditFigures, HistoryEntry, RevisionDetail, RevisionSummary, Submission as SubmissionDto } from '../../shared/api/revisions.js';
 import { withBriefMaterial } from '../audits/brief-rules.js';
 import type { AppContext } from '../context.js';
+import { carryPinsOver } from '../critique/pins-service.js';
 import { Brief, Material, Membership } from '../db/entities/index.js';
 import { fromSqlDate, rawDb, sqlDate, whenNoTransaction } from '../db/raw.js';
 import { BadRequestError, ConflictError, NotFoundError, UnprocessableError } from '../http/errors.js';
@@ -253,6 +254,13 @@ export function revisionsService(ctx: AppContext) {
         files: [...built.files, ...photos],
       });
       ctx.audits.enqueue([auditId]);
+      // Right after the commit: the previous revision's pins move to this one where their piece
+      // still exists, or stay behind marked outdated. A failure here never loses the upload.
+      try {
+        await carryPinsOver(ds, revisionId);
+      } catch (e) {
+        (ctx.logError ?? console.error)(e);
+      }
       return detail(revisionId);
     },
 

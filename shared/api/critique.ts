@@ -105,6 +105,8 @@ export const pinSchema = z.object({
   updatedAt: z.string(),
   resolvedBy: person.nullable(),
   outdated: z.boolean(),
+  /** Why the pin did not carry over (a sentence), when `outdated`; the server always sends it (null otherwise). */
+  outdatedReason: z.string().nullable().optional(),
   comments: z.array(pinCommentSchema),
 });
 export type Pin = z.infer<typeof pinSchema>;

@@ -215,10 +215,10 @@ describe('submissions table', () => {
     // Rows by name: "=" sorts before letters. A line break inside a quoted cell is a bare LF.
     const lines = text.slice(1).split('\r\n');
     expect(lines[0]).toBe(
-      'Participant,E-mail,Revisions,Latest revision,Submitted at,Late,Audit state,Errors,Warnings,Pieces,Connected groups,Sheets,Critique state,"Structure, joints (weight 2)",Total mark',
+      'Participant,E-mail,Revisions,Latest revision,Submitted at,Late,Audit state,Errors,Warnings,Pieces,Connected groups,Sheets,Critique state,"Structure, joints (weight 2)",Final mark,Feedback released',
     );
-    expect(lines[1]).toBe(`"'=HYPERLINK(""http://example.org"")",tricky@example.org,1,1,2026-03-02T09:00:00.000Z,no,done,0,0,6,1,1,not-started,,`);
-    expect(lines[2]).toBe('"Doe, ""Jo""\nsecond line",quoted@example.org,1,1,2026-03-02T09:00:00.000Z,no,done,0,0,6,1,1,not-started,,');
+    expect(lines[1]).toBe(`"'=HYPERLINK(""http://example.org"")",tricky@example.org,1,1,2026-03-02T09:00:00.000Z,no,done,0,0,6,1,1,not-started,,,no`);
+    expect(lines[2]).toBe('"Doe, ""Jo""\nsecond line",quoted@example.org,1,1,2026-03-02T09:00:00.000Z,no,done,0,0,6,1,1,not-started,,,no');
   });
 
   it('re-audits every latest revision on request', async () => {

@@ -31,6 +31,9 @@ describe('settings', () => {
       ['revision-received', true],
       ['brief-published', true],
       ['deadline-reminder', true],
+      ['pin-created', true],
+      ['pin-reply', true],
+      ['feedback-released', true],
     ]);
     const off = await request(t.app).put('/api/me/notifications').set('Cookie', cookie).send({ 'brief-published': false });
     expect(off.body.settings.find((s: { kind: string }) => s.kind === 'brief-published').enabled).toBe(false);
