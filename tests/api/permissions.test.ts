@@ -11,6 +11,8 @@ import { readFileSync } from 'node:fs';
 import { Brief, Invitation, MailMessage, Material } from '../../server/db/entities/index.js';
 import { rawDb, sqlDate } from '../../server/db/raw.js';
 import { hashToken, newToken } from '../../server/lib/tokens.js';
+import { piecesOfRevision } from '../../server/critique/pieces.js';
+import { locateInPolygon } from '../../shared/engine/polygons.js';
 import { DEMO_PASSWORD, DEMO_STUDIO_ID, startTestApp, type TestApp } from './helpers.js';
 
 const CALLERS = ['anonymous', 'admin', 'technician', 'instructor', 'critic', 'participant', 'outsider'] as const;
@@ -125,6 +127,66 @@ function failedRevision(t: TestApp): number {
   return Number(rev.lastInsertRowid);
 }
 
+/** The seeded submission's latest revision (other entries add revisions to it). */
+function latestRevision(t: TestApp): number {
+  return (rawDb(t.ds).prepare('SELECT id FROM revisions WHERE submission_id = ? ORDER BY number DESC LIMIT 1').get(SUBMISSION) as { id: number }).id;
+}
+
+/** A valid pin body on a revision: its first piece and a point inside it. */
+function pinOn(t: TestApp, revisionId: number): object {
+  const built = piecesOfRevision(t.ds, revisionId);
+  if (!built.ok) throw new Error(built.error);
+  const piece = built.pieces[0];
+  const xs = piece.polygon.outer.map((p) => p[0]);
+  const ys = piece.polygon.outer.map((p) => p[1]);
+  for (let i = 1; i < 20; i++) {
+    for (let j = 1; j < 20; j++) {
+      const point: [number, number] = [Math.min(...xs) + ((Math.max(...xs) - Math.min(...xs)) * i) / 20, Math.min(...ys) + ((Math.max(...ys) - Math.min(...ys)) * j) / 20];
+      if (locateInPolygon(point, piece.polygon) === 'inside') {
+        return { anchor: { piece: piece.id, point, side: 1 }, category: 'structure', camera: { position: [300, 300, 300], target: [0, 0, 0] }, body: 'Permission pin.' };
+      }
+    }
+  }
+  throw new Error(`no point inside ${piece.id}`);
+}
+
+/** A pin by the instructor on the seeded submission's latest revision. */
+function freshPin(t: TestApp): number {
+  const db = rawDb(t.ds);
+  const now = sqlDate(t.clock.now());
+  const rev = latestRevision(t);
+  const author = (db.prepare(`SELECT id FROM users WHERE email = 'instructor@example.org'`).get() as { id: number }).id;
+  const pin = db
+    .prepare(
+      `INSERT INTO pins (submission_id, number, placed_on_revision_id, scope, category, state, camera, author_id, created_at, updated_at)
+       SELECT ?, COALESCE(MAX(number), 0) + 1, ?, 'piece', 'form', 'open', '{"position":[1,1,1],"target":[0,0,0]}', ?, ?, ? FROM pins WHERE submission_id = ?`,
+    )
+    .run(SUBMISSION, rev, author, now, now, SUBMISSION);
+  const id = Number(pin.lastInsertRowid);
+  db.prepare(`INSERT INTO pin_anchors (pin_id, revision_id, piece, x, y, side) VALUES (?, ?, 'panel-01', 0, 0, 1)`).run(id, rev);
+  db.prepare(`INSERT INTO pin_comments (pin_id, author_id, body, created_at) VALUES (?, ?, 'Fresh pin.', ?)`).run(id, author, now);
+  return id;
+}
+
+/** A scheduled pin-up of the seeded brief with the seeded submission in it. */
+function freshPinup(t: TestApp): number {
+  const db = rawDb(t.ds);
+  const now = sqlDate(t.clock.now());
+  const p = db
+    .prepare(`INSERT INTO pinups (brief_id, title, starts_at, duration_minutes, room, state, created_by_id, created_at, updated_at) VALUES (?, ?, ?, 90, '', 'scheduled', NULL, ?, ?)`)
+    .run(PUBLISHED_BRIEF, unique('Pin-up'), now, now, now);
+  db.prepare('INSERT INTO pinup_entries (pinup_id, submission_id, position) VALUES (?, ?, 1)').run(p.lastInsertRowid, SUBMISSION);
+  return Number(p.lastInsertRowid);
+}
+
+/** Gives the seeded submission a final mark so it can be released. */
+function markedSubmission(t: TestApp): number {
+  rawDb(t.ds)
+    .prepare(`INSERT INTO feedback (submission_id, final_mark, summary, released_at, updated_at) VALUES (?, 70, '', NULL, ?) ON CONFLICT (submission_id) DO UPDATE SET final_mark = 70`)
+    .run(SUBMISSION, sqlDate(t.clock.now()));
+  return SUBMISSION;
+}
+
 /** Set in beforeAll: a revision uploaded by participant@ to the seeded brief, and its design file. */
 let uploaded: { revisionId: number; fileId: number };
 
@@ -223,6 +285,34 @@ const TABLE: Record<string, Entry> = {
   'GET /api/revisions/:revisionId/templates/:familyId': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}/templates/facets` }), expect: members(200) },
   'GET /api/me/notifications': { call: () => ({ path: '/api/me/notifications' }), expect: signedIn(200) },
   'PUT /api/me/notifications': { call: () => ({ path: '/api/me/notifications', body: { 'deadline-reminder': true } }), expect: signedIn(200) },
+  'GET /api/revisions/:revisionId/pins': { call: (t) => ({ path: `/api/revisions/${latestRevision(t)}/pins` }), expect: members(200) },
+  'POST /api/revisions/:revisionId/pins': {
+    call: (t) => {
+      const rev = latestRevision(t);
+      return { path: `/api/revisions/${rev}/pins`, body: pinOn(t, rev) };
+    },
+    expect: only(['admin', 'instructor', 'critic'], 201),
+  },
+  'POST /api/pins/:pinId/comments': { call: (t) => ({ path: `/api/pins/${freshPin(t)}/comments`, body: { body: 'A reply.' } }), expect: members(201) },
+  'PATCH /api/pins/:pinId': { call: (t) => ({ path: `/api/pins/${freshPin(t)}`, body: { state: 'resolved' } }), expect: members(200) },
+  'GET /api/briefs/:briefId/pinups': { call: () => ({ path: `/api/briefs/${PUBLISHED_BRIEF}/pinups` }), expect: members(200) },
+  'POST /api/briefs/:briefId/pinups': {
+    call: () => ({ path: `/api/briefs/${PUBLISHED_BRIEF}/pinups`, body: { title: unique('Crit'), startsAt: '2026-03-20T14:00:00Z' } }),
+    expect: instructors(201),
+  },
+  'GET /api/pinups/:pinupId': { call: (t) => ({ path: `/api/pinups/${freshPinup(t)}` }), expect: members(200) },
+  'PATCH /api/pinups/:pinupId': { call: (t) => ({ path: `/api/pinups/${freshPinup(t)}`, body: { room: 'Bench room 2' } }), expect: instructors(200) },
+  'DELETE /api/pinups/:pinupId': { call: (t) => ({ path: `/api/pinups/${freshPinup(t)}` }), expect: instructors(204) },
+  'GET /api/submissions/:submissionId/feedback': { call: () => ({ path: `/api/submissions/${SUBMISSION}/feedback` }), expect: members(200) },
+  'PUT /api/submissions/:submissionId/scores': {
+    call: () => ({ path: `/api/submissions/${SUBMISSION}/scores`, body: { scores: [{ criterion: 'structure', score: 2 }] } }),
+    expect: only(['admin', 'instructor', 'critic'], 200),
+  },
+  'PUT /api/submissions/:submissionId/feedback': {
+    call: () => ({ path: `/api/submissions/${SUBMISSION}/feedback`, body: { finalMark: 72, summary: 'Sound structure.' } }),
+    expect: instructors(200),
+  },
+  'POST /api/submissions/:submissionId/feedback/release': { call: (t) => ({ path: `/api/submissions/${markedSubmission(t)}/feedback/release` }), expect: instructors(200) },
 };
 
 /** Route layers Express actually holds (catches a route added without `defineRoutes`). */
