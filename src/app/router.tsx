@@ -72,6 +72,19 @@ export function createAppRouter(queryClient: QueryClient) {
 
   return createBrowserRouter([
     {
+      // Presentation mode fills the screen: no top bar or footer, but the same session guard.
+      id: 'present',
+      path: '/pinups/:pinupId/present',
+      loader: async (args: LoaderFunctionArgs) => {
+        await rootLoader(queryClient)();
+        return signedIn(args);
+      },
+      ErrorBoundary: RootErrorPage,
+      HydrateFallback: () => <PageSkeleton label="Opening the presentation…" />,
+      Component: SignedInOutlet,
+      children: [{ index: true, lazy: lazy(() => import('./routes/pinup-present.js'), signedIn) }],
+    },
+    {
       id: 'root',
       path: '/',
       Component: AppLayout,
@@ -99,6 +112,8 @@ export function createAppRouter(queryClient: QueryClient) {
                 { path: 'briefs/:briefId/edit', lazy: lazy(() => import('./routes/brief-edit.js'), signedIn) },
                 { path: 'briefs/:briefId/submissions', lazy: lazy(() => import('./routes/brief-submissions.js'), signedIn) },
                 { path: 'revisions/:revisionId', lazy: lazy(() => import('./routes/revision.js'), signedIn) },
+                { path: 'pinups/:pinupId', lazy: lazy(() => import('./routes/pinup.js'), signedIn) },
+                { path: 'submissions/:submissionId/feedback', lazy: lazy(() => import('./routes/submission-feedback.js'), signedIn) },
                 { path: 'settings/notifications', lazy: lazy(() => import('./routes/notification-settings.js'), signedIn) },
                 {
                   path: 'admin',

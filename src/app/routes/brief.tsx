@@ -1,9 +1,10 @@
+import { useState } from 'react';
 import type { QueryClient } from '@tanstack/react-query';
-import { useQueryClient } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { GlobalRole, StudioRole } from '../../../shared/api/roles.js';
 import { AuditStateBadge } from '../../components/ui/audit-state-badge.js';
-import { ButtonLink, buttonClasses } from '../../components/ui/button.js';
+import { Button, ButtonLink, buttonClasses } from '../../components/ui/button.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
 import { MarkdownView } from '../../components/ui/markdown-view.js';
 import { PageHeader } from '../../components/ui/page-header.js';
@@ -16,10 +17,16 @@ import { BriefChangelog } from '../../features/briefs/components/brief-changelog
 import { BriefStateBadge } from '../../features/briefs/components/brief-state-badge.js';
 import { ConstraintsSummary } from '../../features/briefs/components/constraints-summary.js';
 import { SafetyCautions } from '../../features/materials/components/safety-cautions.js';
+import { useCreatePinup } from '../../features/pinups/api/create-pinup.js';
+import { pinupsQueryOptions, usePinups } from '../../features/pinups/api/get-pinups.js';
+import { PinupForm } from '../../features/pinups/components/pinup-form.js';
+import { PinupList } from '../../features/pinups/components/pinup-list.js';
+import { describeError } from '../../components/ui/error-state.js';
 import { submissionQueryOptions, useSubmission } from '../../features/revisions/api/get-submission.js';
 import { RevisionsList } from '../../features/revisions/components/revisions-list.js';
 import { UploadRevisionPanel } from '../../features/revisions/components/upload-revision-panel.js';
 import { studioQueryOptions, useStudio } from '../../features/studios/api/get-studio.js';
+import { submissionsQueryOptions } from '../../features/submissions/api/get-submissions.js';
 import { formatDateTime, formatTimeLeft } from '../../lib/format.js';
 import { useDocumentTitle } from '../../lib/use-document-title.js';
 import { parseIdParam } from './route-params.js';
@@ -36,6 +43,7 @@ export function makeLoader(queryClient: QueryClient) {
       queryClient.ensureQueryData(studioQueryOptions(brief.studioId)),
       brief.mySubmission ? queryClient.ensureQueryData(submissionQueryOptions(brief.mySubmission.id)) : null,
       brief.state !== 'draft' ? queryClient.ensureQueryData(briefChangesQueryOptions(briefId)) : null,
+      brief.state !== 'draft' ? queryClient.ensureQueryData(pinupsQueryOptions(briefId)) : null,
     ]);
     return null;
   };
@@ -139,9 +147,15 @@ export function Component() {
             }
           />
           {brief.mySubmission ? (
-            <QueryView query={submission} loadingLabel="Loading your revisions…" errorTitle="Your revisions could not be loaded">
-              {(s) => <RevisionsList revisions={s.revisions} />}
-            </QueryView>
+            <>
+              <QueryView query={submission} loadingLabel="Loading your revisions…" errorTitle="Your revisions could not be loaded">
+                {(s) => <RevisionsList revisions={s.revisions} />}
+              </QueryView>
+              <p className="mt-4 text-sm">
+                <Link to={`/submissions/${brief.mySubmission.id}/feedback`}>Your feedback and mark</Link>
+                <span className="text-ink-soft"> · shown once the instructor releases it</span>
+              </p>
+            </>
           ) : (
             <RevisionsList revisions={[]} />
           )}
@@ -171,6 +185,8 @@ export function Component() {
         </Card>
       ) : null}
 
+      {brief.state !== 'draft' ? <PinupsSection briefId={brief.id} manage={manage} /> : null}
+
       {brief.state !== 'draft' ? (
         <Card aria-labelledby="brief-changes-heading">
           <CardHeader id="brief-changes-heading" title="Changes to this brief" />
@@ -180,5 +196,60 @@ export function Component() {
         </Card>
       ) : null}
     </div>
+  );
+}
+
+/** The brief's pin-up sessions for everyone who sees the brief, and the schedule form for instructors. */
+function PinupsSection({ briefId, manage }: { briefId: number; manage: boolean }) {
+  const pinups = usePinups(briefId);
+  const [scheduling, setScheduling] = useState(false);
+  const submissions = useQuery({ ...submissionsQueryOptions(briefId, {}), enabled: manage && scheduling });
+  const create = useCreatePinup(briefId);
+  const options = (submissions.data ?? []).map((r) => ({ submissionId: r.submissionId, participantName: r.participant.name, latestRevision: r.latestRevision?.number ?? null }));
+
+  return (
+    <Card aria-labelledby="pinups-heading">
+      <CardHeader
+        id="pinups-heading"
+        title="Pin-ups"
+        description="Critique sessions that walk through the submissions in a running order. Times are in your local time."
+        actions={
+          manage && !scheduling ? (
+            <Button variant="secondary" onClick={() => setScheduling(true)}>
+              Schedule a pin-up
+            </Button>
+          ) : undefined
+        }
+      />
+      {manage && scheduling ? (
+        <div className="mb-6 rounded-lg border border-rule bg-paper p-4">
+          <h3 className="mb-3 text-base font-semibold">Schedule a pin-up</h3>
+          {submissions.isPending ? (
+            <p role="status" className="text-sm text-ink-soft">
+              Loading the submissions…
+            </p>
+          ) : submissions.isError ? (
+            <div role="alert" className="space-y-2 text-sm">
+              <p className="text-signal-error">The submissions could not be loaded: {describeError(submissions.error)}</p>
+              <Button variant="secondary" size="sm" onClick={() => void submissions.refetch()}>
+                Try again
+              </Button>
+            </div>
+          ) : (
+            <PinupForm
+              options={options}
+              ariaLabel="Schedule a pin-up"
+              submitLabel="Schedule pin-up"
+              pendingLabel="Scheduling…"
+              onCancel={() => setScheduling(false)}
+              onSave={(values) => create.mutateAsync(values)}
+            />
+          )}
+        </div>
+      ) : null}
+      <QueryView query={pinups} loadingLabel="Loading the pin-ups…" errorTitle="The pin-ups could not be loaded">
+        {(list) => <PinupList pinups={list} emptyHint={manage ? 'Schedule one to walk through the submissions with the critics.' : undefined} />}
+      </QueryView>
+    </Card>
   );
 }

@@ -2,7 +2,9 @@ import type { ColumnDef } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
 import type { SubmissionRow, SubmissionsQuery } from '../../../../shared/api/briefs.js';
 import { AuditStateBadge } from '../../../components/ui/audit-state-badge.js';
+import { cn } from '../../../components/ui/cn.js';
 import { DataTable } from '../../../components/ui/data-table.js';
+import { RevisionThumbnail } from '../../../components/ui/revision-thumbnail.js';
 import { formatDateTime } from '../../../lib/format.js';
 
 const CRITIQUE_WORDS: Record<SubmissionRow['critiqueState'], string> = {
@@ -13,7 +15,50 @@ const CRITIQUE_WORDS: Record<SubmissionRow['critiqueState'], string> = {
 
 const numberOrDash = (n: number | null) => (n === null ? '—' : n);
 
+// Shape as well as colour: an open ring (nothing yet), a half ring (critics at work), a tick (released).
+const CRITIQUE_MARKS: Record<SubmissionRow['critiqueState'], React.ReactNode> = {
+  'not-started': <circle cx="6" cy="6" r="4.2" fill="none" stroke="currentColor" strokeWidth="1.4" />,
+  'in-progress': (
+    <>
+      <circle cx="6" cy="6" r="4.2" fill="none" stroke="currentColor" strokeWidth="1.4" />
+      <path d="M6 1.8a4.2 4.2 0 0 1 0 8.4z" fill="currentColor" />
+    </>
+  ),
+  released: <path d="M2 6.4 4.8 9.2 10.2 2.8" fill="none" stroke="currentColor" strokeWidth="1.8" strokeLinecap="round" strokeLinejoin="round" />,
+};
+
+const CRITIQUE_FRAMES: Record<SubmissionRow['critiqueState'], string> = {
+  'not-started': 'border-rule-strong text-ink-soft bg-paper-raised',
+  'in-progress': 'border-accent text-accent-strong bg-accent-wash',
+  released: 'border-signal-ok text-signal-ok bg-signal-ok-wash',
+};
+
+/** The critique state of a submission as text with a mark. */
+export function CritiqueStateBadge({ state }: { state: SubmissionRow['critiqueState'] }) {
+  return (
+    <span data-critique-state={state} className={cn('inline-flex items-center gap-1.5 rounded-sm border px-2 py-0.5 text-xs font-medium leading-5 whitespace-nowrap', CRITIQUE_FRAMES[state])}>
+      <svg aria-hidden="true" viewBox="0 0 12 12" className="size-3 shrink-0">
+        {CRITIQUE_MARKS[state]}
+      </svg>
+      <span>
+        <span className="sr-only">Critique </span>
+        {CRITIQUE_WORDS[state]}
+      </span>
+    </span>
+  );
+}
+
 const columns: ColumnDef<SubmissionRow, any>[] = [
+  {
+    id: 'picture',
+    header: 'Picture',
+    enableSorting: false,
+    enableGlobalFilter: false,
+    cell: ({ row }) => {
+      const r = row.original.latestRevision;
+      return r ? <RevisionThumbnail revisionId={r.id} alt={`Revision ${r.number} of ${row.original.participant.name}`} /> : <span className="text-ink-soft">—</span>;
+    },
+  },
   {
     id: 'participant',
     accessorFn: (r) => `${r.participant.name} ${r.participant.email}`,
@@ -66,9 +111,12 @@ const columns: ColumnDef<SubmissionRow, any>[] = [
     accessorFn: (r) => CRITIQUE_WORDS[r.critiqueState],
     header: 'Critique',
     cell: ({ row }) => (
-      <span>
-        {CRITIQUE_WORDS[row.original.critiqueState]}
-        {row.original.critics.length ? <span className="block text-xs text-ink-soft">{row.original.critics.map((c) => c.name).join(', ')}</span> : null}
+      <span className="space-y-1">
+        <CritiqueStateBadge state={row.original.critiqueState} />
+        {row.original.critics.length ? <span className="block text-xs text-ink-soft">{row.original.critics.map((c) => c.name).join(', ')}</span> : <span className="block text-xs text-ink-soft">No critics assigned</span>}
+        <Link to={`/submissions/${row.original.submissionId}/feedback`} className="block text-xs" aria-label={`Feedback on ${row.original.participant.name}`}>
+          Feedback
+        </Link>
       </span>
     ),
   },
