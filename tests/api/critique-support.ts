@@ -5,6 +5,8 @@
  */
 import request from 'supertest';
 import { expect } from 'vitest';
+import { piecesOfRevision } from '../../server/critique/pieces.js';
+import { locateInPolygon } from '../../shared/engine/polygons.js';
 import type { TestApp } from './helpers.js';
 import { cubePlates, makeBrief } from './support-workflow.js';
 
@@ -41,4 +43,21 @@ export async function critiqueFixture(t: TestApp, cookies: { instructor: string;
   const assign = await request(t.app).put(`/api/submissions/${submissionId}/critics`).set('Cookie', cookies.instructor).send({ userIds: [critic[0].id] });
   expect(assign.status, assign.text).toBe(200);
   return { briefId: brief.id, submissionId, revisionId };
+}
+
+/** The first piece of a revision and a point well inside it (read from the server's piece cache). */
+export function pointOn(t: TestApp, revisionId: number): { piece: string; point: [number, number]; side: 1 } {
+  const built = piecesOfRevision(t.ds, revisionId);
+  if (!built.ok) throw new Error(built.error);
+  const piece = built.pieces[0];
+  const xs = piece.polygon.outer.map((p) => p[0]);
+  const ys = piece.polygon.outer.map((p) => p[1]);
+  const [x0, x1, y0, y1] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)];
+  for (let i = 1; i < 20; i++) {
+    for (let j = 1; j < 20; j++) {
+      const point: [number, number] = [x0 + ((x1 - x0) * i) / 20, y0 + ((y1 - y0) * j) / 20];
+      if (locateInPolygon(point, piece.polygon) === 'inside') return { piece: piece.id, point, side: 1 };
+    }
+  }
+  throw new Error(`no point inside ${piece.id}`);
 }
