@@ -133,13 +133,13 @@ export function PresentationStage({
         </div>
         <nav aria-label="Running order" className="flex flex-wrap items-center gap-2">
           <Button variant="secondary" onClick={() => onIndexChange(index - 1)} disabled={index <= 0} aria-keyshortcuts="ArrowLeft">
-            <span aria-hidden="true">←</span> Previous
+            <span aria-hidden="true">←</span> Previous entry
           </Button>
           <p className="min-w-20 text-center font-mono text-sm" aria-live="polite" aria-atomic="true">
             {count ? `${index + 1} of ${count}` : '0 of 0'}
           </p>
           <Button variant="secondary" onClick={() => onIndexChange(index + 1)} disabled={index >= count - 1} aria-keyshortcuts="ArrowRight">
-            Next <span aria-hidden="true">→</span>
+            Next entry <span aria-hidden="true">→</span>
           </Button>
           <Button variant="quiet" onClick={onExit} aria-keyshortcuts="Escape">
             Leave presentation
