@@ -54,7 +54,7 @@ export function CommentBox({
       <TextAreaField
         id={id}
         label={label}
-        hint="Markdown: **bold**, lists, links. HTML is shown as text."
+        hint="Markdown: **bold**, lists, links. HTML tags are left out."
         error={problem ?? undefined}
         value={body}
         onChange={(e) => setBody(e.target.value)}

@@ -115,7 +115,7 @@ export function NewPinForm({
       <TextAreaField
         ref={bodyRef}
         label="Comment"
-        hint="Markdown: **bold**, lists, links. HTML is shown as text."
+        hint="Markdown: **bold**, lists, links. HTML tags are left out."
         error={error ?? undefined}
         value={values.body}
         onChange={(e) => setValues({ ...values, body: e.target.value })}

@@ -61,6 +61,11 @@ export function PinThread({ pin, revisionId, canReply, canResolve, canChangeCate
         {pin.scope === 'orbit' ? ' and every piece of its orbit' : ''}, placed on revision {pin.placedOnRevision.number || '…'} by {pin.author.name}.
         {pin.resolvedBy && pin.state === 'resolved' ? ` Resolved by ${pin.resolvedBy.name}.` : ''}
       </p>
+      {pin.outdated ? (
+        <p className="rounded-md border border-dashed border-ink-soft px-2 py-1.5 text-ink-soft">
+          Outdated: this pin stayed on this revision because its piece changed in the next.{pin.outdatedReason ? ` ${pin.outdatedReason}` : ''}
+        </p>
+      ) : null}
       {onShowView ? (
         <Button variant="secondary" size="sm" onClick={onShowView}>
           Show the pin's view

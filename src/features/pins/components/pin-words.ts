@@ -23,7 +23,7 @@ export function firstWords(markdown: string, max = 12): string {
   const text = markdown
     .replace(/```[\s\S]*?```/g, ' ')
     .replace(/<[^>]*>/g, ' ')
-    .replace(/!?\[([^\]]*)\]\([^)]*\)/g, '$1')
+    .replace(/!?\[([^\]]*)\]\((?:[^()]|\([^()]*\))*\)/g, '$1')
     .replace(/[`*_#>~|]+/g, ' ')
     .replace(/\s+/g, ' ')
     .trim();

@@ -8,8 +8,9 @@ import { toFrame } from '../../../../shared/engine/frames.js';
 import type { Piece } from '../../../../shared/engine/model.js';
 import { buildPieces } from '../../../../shared/engine/pieces.js';
 import { type PinAnchor, anchorAt, orbitAnchors, pinWorldPosition } from '../../../../shared/engine/pins.js';
+import { locateInPolygon } from '../../../../shared/engine/polygons.js';
 import { type Scene, type SceneInstance, type Sphere, buildScene, piecesSphere, rankGroups, usableGroups, usableJoints } from '../../../../shared/engine/scene.js';
-import type { Vec3 } from '../../../../shared/engine/vec.js';
+import type { Vec2, Vec3 } from '../../../../shared/engine/vec.js';
 import { Button } from '../../../components/ui/button.js';
 import { EmptyState } from '../../../components/ui/empty-state.js';
 import { FAMILY_COLOURS, JOINT_STYLES, LOOSE_GROUP_COLOURS, PAPER, familyColour, groupColour } from '../palette.js';
@@ -284,6 +285,22 @@ export default function ModelViewer({ design, joints, groups, focus = null, onCl
 
 const NO_PIN_POINTS: readonly MarkerPoint[] = [];
 
+/**
+ * A point on the piece for a pin placed without a pointer: the centroid when it lies on the
+ * piece, else (a ring-shaped piece, a crescent) the first point found inside on the way from the
+ * centroid to a corner of the outline.
+ */
+function pointOnPiece(piece: Piece, centroid: Vec2): Vec2 {
+  if (locateInPolygon(centroid, piece.polygon, 0) === 'inside') return centroid;
+  for (const t of [0.5, 0.25, 0.75, 0.1, 0.9]) {
+    for (const v of piece.polygon.outer) {
+      const q: Vec2 = [centroid[0] + t * (v[0] - centroid[0]), centroid[1] + t * (v[1] - centroid[1])];
+      if (locateInPolygon(q, piece.polygon, 0) === 'inside') return q;
+    }
+  }
+  return centroid;
+}
+
 interface ViewerBodyProps {
   scene: Scene;
   pieces: readonly Piece[];
@@ -392,7 +409,7 @@ function ViewerBody({ scene, pieces, groups, focus, onClearFocus, pins, layout, 
       const piece = pieceById.get(id);
       const inst = instances.get(id);
       if (!piece || !inst) return;
-      placePin({ piece: id, point: toFrame(piece.frame, inst.centroid), side: 1 });
+      placePin({ piece: id, point: pointOnPiece(piece, toFrame(piece.frame, inst.centroid)), side: 1 });
     },
     [pieceById, instances, placePin],
   );
@@ -519,7 +536,7 @@ function ViewerBody({ scene, pieces, groups, focus, onClearFocus, pins, layout, 
             {markerPoints.length ? <MarkerProjector points={markerPoints} registry={markerEls} clip={clip} /> : null}
             <RenderProbe target={frame} />
           </Canvas>
-          {markerPoints.length ? <PinMarkerLayer points={markerPoints} registry={markerEls} selected={pins?.selected ?? null} onSelect={pins ? pins.onSelect : () => {}} /> : null}
+          {markerPoints.length ? <PinMarkerLayer points={markerPoints} registry={markerEls} selected={pins?.selected ?? null} onSelect={pins ? pins.onSelect : () => {}} passThrough={placing} /> : null}
           {pointed ? (
             <p className="pointer-events-none absolute left-2 top-2 rounded-sm border border-rule bg-paper-raised/90 px-2 py-0.5 font-mono text-xs" data-testid="piece-label">
               {pointed}

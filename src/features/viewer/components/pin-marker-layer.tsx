@@ -12,11 +12,14 @@ export function PinMarkerLayer({
   registry,
   selected,
   onSelect,
+  passThrough = false,
 }: {
   points: readonly MarkerPoint[];
   registry: RefObject<Map<string, HTMLElement>>;
   selected: string | null;
   onSelect(key: string): void;
+  /** While a pin is being placed, clicks go through the markers to the pieces behind them. */
+  passThrough?: boolean;
 }) {
   const register = useCallback(
     (key: string) => (el: HTMLElement | null) => {
@@ -30,7 +33,12 @@ export function PinMarkerLayer({
   return (
     <div className="pointer-events-none absolute inset-0 overflow-hidden" data-testid="pin-markers">
       {points.map((p) => (
-        <div key={p.key} ref={register(p.key)} className="group absolute left-0 top-0 h-0 w-0 [&[data-cut]]:opacity-45" style={{ visibility: 'hidden' }}>
+        <div
+          key={p.key}
+          ref={register(p.key)}
+          className={`absolute left-0 top-0 h-0 w-0 [&[data-cut]]:opacity-45 ${p.kind === 'copy' ? '' : p.pin && selected === p.pin.key ? 'z-30' : p.kind === 'draft' ? 'z-20' : 'z-10'}`}
+          style={{ visibility: 'hidden' }}
+        >
           {p.kind === 'copy' ? (
             <span aria-hidden="true" className="absolute -left-1.5 -top-1.5 block size-3 rounded-full border-2 border-accent/60 bg-paper-raised/40" />
           ) : p.kind === 'draft' ? (
@@ -49,11 +57,12 @@ export function PinMarkerLayer({
               title={p.pin.label}
               onClick={() => onSelect(p.pin!.key)}
               className={[
-                'pointer-events-auto absolute flex -translate-x-1/2 -translate-y-1/2 items-center justify-center gap-0.5 border-2 font-mono text-xs font-semibold leading-none shadow-sm',
+                passThrough ? 'pointer-events-none' : 'pointer-events-auto',
+                'absolute flex -translate-x-1/2 -translate-y-1/2 items-center justify-center gap-0.5 border-2 font-mono text-xs font-semibold leading-none shadow-sm',
                 'focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-ink',
                 p.pin.resolved ? 'h-6 min-w-6 rounded-[3px] border-ink-soft bg-paper-raised px-1 text-ink' : 'size-7 rounded-full border-paper-raised bg-accent text-white',
                 p.pin.outdated ? 'border-dashed' : '',
-                selected === p.pin.key ? 'z-10 scale-125 ring-2 ring-ink ring-offset-1 ring-offset-paper-raised' : '',
+                selected === p.pin.key ? 'scale-125 ring-2 ring-ink ring-offset-1 ring-offset-paper-raised' : '',
               ].join(' ')}
             >
               {p.pin.resolved ? <span aria-hidden="true">✓</span> : null}
