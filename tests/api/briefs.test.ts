@@ -159,7 +159,8 @@ describe('submissions table', () => {
     expect(all.status).toBe(200);
     const byName = Object.fromEntries(all.body.map((r: { participant: { name: string } }) => [r.participant.name, r]));
     // designs README: the keel lantern passes; the closed shell has 4 non-orthogonal-contact errors.
-    expect(byName['Kofi Mensah-Lowe']).toMatchObject({ revisions: 2, latestRevision: { number: 2 }, auditState: 'done', errors: 0, pieces: 80, sheets: 2, late: false, critiqueState: 'not-started' });
+    // The demo seed has begun the critique of Kofi's lantern (pins and a score sheet).
+    expect(byName['Kofi Mensah-Lowe']).toMatchObject({ revisions: 2, latestRevision: { number: 2 }, auditState: 'done', errors: 0, pieces: 80, sheets: 2, late: false, critiqueState: 'in-progress' });
     expect(byName['Priya Nandakumar']).toMatchObject({ revisions: 1, errors: 4, components: 1, sheets: 3 });
     const withErrors = await request(t.app).get('/api/briefs/1/submissions?hasErrors=true').set('Cookie', instructor);
     expect(withErrors.body.map((r: { participant: { name: string } }) => r.participant.name)).toEqual(['Priya Nandakumar']);
