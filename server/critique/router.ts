@@ -18,6 +18,7 @@ import {
 import { briefResource, revisionResource, submissionResource } from '../briefs/access.js';
 import type { AppContext } from '../context.js';
 import { defineRoutes, type RouteRegistry } from '../http/routes.js';
+import { thumbnailPng } from '../thumbnails/service.js';
 import { pinResource, pinupResource } from './access.js';
 import { feedbackService } from './feedback-service.js';
 import type { ThumbnailSource } from './mails.js';
@@ -34,7 +35,8 @@ export function critiqueRouter(ctx: AppContext, registry: RouteRegistry, options
   const router = Router();
   const r = defineRoutes(router, registry, '/api');
   const ds = ctx.dataSource;
-  const pins = pinsService(ctx, options);
+  // The pin-created mail shows the revision's model inline (the stored thumbnail, drawn once).
+  const pins = pinsService(ctx, { thumbnail: options.thumbnail ?? ((revisionId) => thumbnailPng(ctx, revisionId)) });
   const pinups = pinupsService(ctx);
   const feedback = feedbackService(ctx);
   const ofRevision = (i: { params: { revisionId: number } }) => revisionResource(ds, i.params.revisionId);

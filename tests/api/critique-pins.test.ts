@@ -260,6 +260,8 @@ describe('e-mails', () => {
     expect(mails[0].text).toContain(`http://planewright.test/revisions/${f.revisionId}`);
     expect(mails[0].text).toContain('To turn these e-mails off, open http://planewright.test/settings/notifications.');
     expect(mails[0].html).toContain(`href="http://planewright.test/revisions/${f.revisionId}"`);
+    // The model's thumbnail rides along inline (cid); the sink's parser turns it into a data URL of a PNG.
+    expect(mails[0].html).toMatch(/<img src="data:image\/png;base64,iVBORw0KGgo[^"]+" alt="The revision's model"/);
     // A state change sends nothing.
     await patch(participant, `/api/pins/${pin.id}`, { state: 'resolved' });
     expect((await t.outbox()).length).toBe(before + 1);
