@@ -73,7 +73,6 @@ export function RunningOrder({
               <td className="min-w-48 px-3 py-2.5">
                 {critics && onAssignCritics ? (
                   <CriticsPicker
-                    key={e.critics.map((c) => c.id).join(',')}
                     participantName={e.participant.name}
                     critics={critics}
                     assigned={e.critics}
