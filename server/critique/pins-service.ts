@@ -20,7 +20,7 @@ import { locateInPolygon } from '../../shared/engine/polygons.js';
 import type { AppContext } from '../context.js';
 import { fromSqlDate, rawDb, sqlDate, whenNoTransaction } from '../db/raw.js';
 import { ConflictError, NotFoundError, UnprocessableError } from '../http/errors.js';
-import { assertCan, } from '../policy/enforce.js';
+import { assertCan } from '../policy/enforce.js';
 import { can, type Actor, type Resource } from '../policy/policy.js';
 import { critiqueMails, type ThumbnailSource } from './mails.js';
 import { peopleOf } from './people.js';
@@ -42,6 +42,8 @@ interface PinRow {
   created_at: string;
   updated_at: string;
   revision_id: number;
+  /** Number of the revision this row shows the pin on. */
+  shown_number: number;
   piece: string;
   x: number;
   y: number;
@@ -53,9 +55,10 @@ interface PinRow {
 const PIN_SELECT = `
   SELECT p.id, p.submission_id, p.number, p.placed_on_revision_id, pr.number AS placed_number, p.scope, p.category, p.state, p.camera,
          p.author_id, p.resolved_by_id, p.outdated_reason, p.created_at, p.updated_at,
-         a.revision_id, a.piece, a.x, a.y, a.side,
+         a.revision_id, ar.number AS shown_number, a.piece, a.x, a.y, a.side,
          (SELECT MAX(r2.number) FROM pin_anchors a2 JOIN revisions r2 ON r2.id = a2.revision_id WHERE a2.pin_id = p.id) AS last_number
-    FROM pin_anchors a JOIN pins p ON p.id = a.pin_id JOIN revisions pr ON pr.id = p.placed_on_revision_id`;
+    FROM pin_anchors a JOIN pins p ON p.id = a.pin_id JOIN revisions pr ON pr.id = p.placed_on_revision_id
+    JOIN revisions ar ON ar.id = a.revision_id`;
 
 interface RevisionFacts {
   id: number;
@@ -105,8 +108,8 @@ export function pinsService(ctx: AppContext, options: PinsServiceOptions = {}) {
       byPin.set(c.pin_id, list);
     }
     return rows.map((r) => {
-      const shownNumber = (db.prepare('SELECT number FROM revisions WHERE id = ?').get(r.revision_id) as { number: number }).number;
-      const outdated = r.outdated_reason !== null && shownNumber === r.last_number;
+      // Outdated where it stayed behind; on the earlier revisions it did carry over from, it is not.
+      const outdated = r.outdated_reason !== null && r.shown_number === r.last_number;
       return {
         id: r.id,
         number: r.number,
@@ -132,7 +135,7 @@ export function pinsService(ctx: AppContext, options: PinsServiceOptions = {}) {
   /** The pin as shown on its last anchored revision. */
   function pinNow(pinId: number): PinDto {
     const row = db
-      .prepare(`${PIN_SELECT} JOIN revisions ar ON ar.id = a.revision_id WHERE p.id = ? ORDER BY ar.number DESC LIMIT 1`)
+      .prepare(`${PIN_SELECT} WHERE p.id = ? ORDER BY ar.number DESC LIMIT 1`)
       .get(pinId) as PinRow | undefined;
     if (!row) throw new NotFoundError('There is no pin with this id.');
     const studio = db.prepare('SELECT b.studio_id FROM submissions s JOIN briefs b ON b.id = s.brief_id WHERE s.id = ?').get(row.submission_id) as { studio_id: number };
@@ -192,6 +195,12 @@ export function pinsService(ctx: AppContext, options: PinsServiceOptions = {}) {
       const now = sqlDate(ctx.clock.now());
       await whenNoTransaction(db);
       const pinId = db.transaction(() => {
+        // Checked again inside the transaction: a revision uploaded meanwhile has already carried
+        // the previous revision's pins over, and this one would be left behind.
+        const latest = revisionFacts(db, revisionId);
+        if (latest.latest_id !== revisionId) {
+          throw new ConflictError(`Revision ${latest.number} is no longer the latest: revision ${latest.latest_number} is newer. Place the pin on revision ${latest.latest_number}.`, 'revision_not_latest');
+        }
         const ins = db
           .prepare(
             `INSERT INTO pins (submission_id, number, placed_on_revision_id, scope, category, state, camera, author_id, resolved_by_id, outdated_reason, created_at, updated_at)
