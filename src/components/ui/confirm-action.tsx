@@ -39,7 +39,7 @@ export function ConfirmAction({
 
   if (!asking) {
     return (
-      <button ref={openRef} type="button" className={buttonClasses(variant === 'danger' ? 'danger' : 'secondary', size)} onClick={() => setAsking(true)}>
+      <button ref={openRef} type="button" className={buttonClasses(variant, size)} onClick={() => setAsking(true)}>
         {label}
       </button>
     );
