@@ -10,8 +10,8 @@ const entry = (position: number, submissionId: number, name: string) => ({
   submissionId,
   participant: { id: submissionId + 100, name },
   latestRevision: { id: submissionId * 10, number: 1 },
-  critics: [],
-  openPins: 0,
+  critics: submissionId === 21 ? [{ id: 5, name: 'Juno Pell' }] : [],
+  openPins: submissionId === 21 ? 2 : 0,
   resolvedPins: 0,
 });
 
@@ -98,10 +98,12 @@ describe('PresentationStage', () => {
     render(<Harness onExit={vi.fn()} />);
     expect(screen.getByRole('heading', { level: 1 }).textContent).toContain('Oda Finch');
     expect(screen.getByText('1 of 3')).toBeTruthy();
+    expect(screen.getByText('Critics: Juno Pell · 2 open, 0 resolved')).toBeTruthy();
     expect(screen.getByRole('button', { name: 'Previous entry' })).toHaveProperty('disabled', true);
     fireEvent.click(screen.getByRole('button', { name: 'Next entry' }));
     expect(screen.getByText('2 of 3')).toBeTruthy();
     expect(screen.getByRole('heading', { level: 1 }).textContent).toContain('Ilse Marrow');
+    expect(screen.getByText('No critics assigned · 0 open, 0 resolved')).toBeTruthy();
     key('ArrowRight');
     expect(screen.getByText('3 of 3')).toBeTruthy();
     key('ArrowRight');

@@ -130,6 +130,11 @@ export function PresentationStage({
             {entry ? entry.participant.name : 'No entries'}
             {entry?.latestRevision ? <span className="ml-3 text-base font-normal text-ink-soft">revision {entry.latestRevision.number}</span> : null}
           </h1>
+          {entry ? (
+            <p className="text-sm text-ink-soft">
+              {entry.critics.length ? `Critics: ${entry.critics.map((c) => c.name).join(', ')}` : 'No critics assigned'} · {entry.openPins} open, {entry.resolvedPins} resolved
+            </p>
+          ) : null}
         </div>
         <nav aria-label="Running order" className="flex flex-wrap items-center gap-2">
           <Button variant="secondary" onClick={() => onIndexChange(index - 1)} disabled={index <= 0} aria-keyshortcuts="ArrowLeft">
