@@ -47,6 +47,9 @@ describe('weighted score', () => {
     // Only joints scored: 3·1/3 / 3 × 100 = 33.33
     expect(weightedScore(rubric, [{ criterion: 'joints', score: 1 }])).toBe(33.33);
     expect(weightedScore(rubric, [])).toBeNull();
+    // A criterion whose levels all score 0 cannot be weighed and is left out; so is one not in the rubric.
+    const flat = [...rubric, { id: 'notes', criterion: 'Notes', weight: 5, levels: [{ score: 0, label: 'Seen', descriptor: '' }] }];
+    expect(weightedScore(flat, [{ criterion: 'joints', score: 3 }, { criterion: 'notes', score: 0 }, { criterion: 'gone', score: 2 }])).toBe(100);
   });
 });
 
