@@ -643,7 +643,8 @@ function PiecePanel({ scene, piece, instance, joints, pinned }: { scene: Scene; 
         {joints.length === 0 ? (
           <p className="text-ink-soft">No joint with another piece.</p>
         ) : (
-          <ul className="max-h-48 space-y-1 overflow-auto">
+          // Scrolls when the piece has many joints, so it takes the keyboard focus too.
+          <ul className="max-h-48 space-y-1 overflow-auto focus-visible:outline-2 focus-visible:outline-accent" tabIndex={0} aria-label={`Joints of ${piece}`}>
             {joints.map((k) => {
               const j = scene.joints[k];
               const other = j.a === piece ? j.b : j.a;
