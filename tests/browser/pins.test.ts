@@ -111,7 +111,7 @@ it('a critic pins a piece, the participant answers and resolves, and the critic 
   expect(await marker.getAttribute('aria-pressed')).toBe('true');
   expect(await thread.locator('strong').first().innerText()).toBe('tab');
   expect(await thread.locator('img').count()).toBe(0);
-  expect(await participant.evaluate(() => (window as unknown as { __pinned?: number }).__pinned)).toBeUndefined();
+  expect(await participant.evaluate(() => (globalThis as unknown as { __pinned?: number }).__pinned)).toBeUndefined();
   await thread.getByLabel(/Reply to pin/).fill('Widened to 8 mm in the next revision.');
   await thread.getByRole('button', { name: 'Send reply' }).click();
   await expect.poll(() => thread.innerText()).toContain('Widened to 8 mm in the next revision.');
