@@ -124,6 +124,17 @@ describe('RevisionCritique placing and threads', () => {
     expect(within(screen.getByTestId('pin-thread')).queryByLabelText('Category')).toBeNull();
   });
 
+  it('a caller may hold the selection: its pin is shown, and choices in the list are reported', async () => {
+    fetchMock.mockResolvedValue(json(200, revisionPins([pin({ id: 1 }), pin({ id: 2, category: 'brief' })])));
+    const onChange = vi.fn();
+    renderCritique({ selectedPinId: 2, onSelectedPinChange: onChange, readOnly: true });
+    expect(within(await screen.findByTestId('pin-thread')).getByRole('heading').textContent).toContain('Pin 2: Brief');
+    fireEvent.click(within(screen.getByTestId('pin-list')).getAllByRole('button')[0]);
+    expect(onChange).toHaveBeenCalledWith(1);
+    // Still the caller's choice until it changes the prop.
+    expect(within(screen.getByTestId('pin-thread')).getByRole('heading').textContent).toContain('Pin 2');
+  });
+
   it('when the browser has no WebGL the model says so and the pin list still works', async () => {
     const design: unknown = cubePlates;
     fetchMock.mockResolvedValue(json(200, revisionPins([pin({ id: 1 })])));

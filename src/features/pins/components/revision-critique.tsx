@@ -39,6 +39,13 @@ export interface RevisionCritiqueProps {
   /** A finding's pieces to show on the model (the revision page's findings table). */
   focus?: ViewerFocus | null;
   onClearFocus?: () => void;
+  /**
+   * The selected pin, when the caller keeps it (a presentation stepping through pins); a new id
+   * selects that pin and flies to its view. Leave undefined to let the list and markers decide.
+   */
+  selectedPinId?: number | null;
+  /** Told whenever the list, a marker or Close selects another pin (or none). */
+  onSelectedPinChange?: (pinId: number | null) => void;
 }
 
 function isTyping(target: EventTarget | null): boolean {
@@ -54,7 +61,17 @@ function isTyping(target: EventTarget | null): boolean {
  * markers select each other; choosing a pin in the list flies to the view it was placed from.
  * New pins and replies appear by themselves (asked for every 5 s while the page is visible).
  */
-export function RevisionCritique({ revision, report, readOnly = false, compact = false, viewer = null, focus = null, onClearFocus }: RevisionCritiqueProps) {
+export function RevisionCritique({
+  revision,
+  report,
+  readOnly = false,
+  compact = false,
+  viewer = null,
+  focus = null,
+  onClearFocus,
+  selectedPinId,
+  onSelectedPinChange,
+}: RevisionCritiqueProps) {
   const query = useRevisionPins(revision.id);
   const data = query.data;
   const pins = useMemo(() => data?.pins ?? [], [data]);
@@ -64,8 +81,15 @@ export function RevisionCritique({ revision, report, readOnly = false, compact =
   const create = useCreatePin(revision.id, { id: viewer?.id ?? 0, name: viewer?.name ?? 'You', role: viewer?.role ?? 'critic' });
 
   const [filters, setFilters] = useState<PinFilters>(ALL_PINS);
-  const [selected, setSelected] = useState<{ revisionId: number; pinId: number } | null>(null);
-  const selectedId = selected && selected.revisionId === revision.id ? selected.pinId : null;
+  const [chosen, setChosen] = useState<{ revisionId: number; pinId: number } | null>(null);
+  const controlled = selectedPinId !== undefined;
+  const selectedId = controlled ? selectedPinId : chosen && chosen.revisionId === revision.id ? chosen.pinId : null;
+  const changeRef = useRef(onSelectedPinChange);
+  changeRef.current = onSelectedPinChange;
+  const setSelected = useCallback((next: { revisionId: number; pinId: number } | null) => {
+    setChosen(next);
+    changeRef.current?.(next ? next.pinId : null);
+  }, []);
   const selectedPin = selectedId === null ? null : (pins.find((p) => p.id === selectedId) ?? null);
   const [placing, setPlacing] = useState(false);
   const [draft, setDraft] = useState<{ at: PinDraft; values?: NewPinValues; problem?: string } | null>(null);
@@ -104,13 +128,24 @@ export function RevisionCritique({ revision, report, readOnly = false, compact =
     [pins],
   );
 
+  /** The pin whose view was last flown to (or chosen here), so a caller's echo does not fly again. */
+  const flownTo = useRef<number | null>(null);
   const selectPin = useCallback(
     (pin: Pin, fly: boolean) => {
+      flownTo.current = pin.id;
       setSelected({ revisionId: revision.id, pinId: pin.id });
       if (fly) setView((v) => ({ key: (v?.key ?? 0) + 1, camera: pin.camera }));
     },
-    [revision.id],
+    [revision.id, setSelected],
   );
+  // A caller-held selection flies to the pin's view whenever it names another pin.
+  useEffect(() => {
+    if (!controlled || selectedPinId == null || flownTo.current === selectedPinId) return;
+    const pin = pins.find((p) => p.id === selectedPinId);
+    if (!pin) return;
+    flownTo.current = selectedPinId;
+    setView((v) => ({ key: (v?.key ?? 0) + 1, camera: pin.camera }));
+  }, [controlled, selectedPinId, pins]);
   const onMarker = useCallback(
     (key: string) => {
       const pin = pins.find((p) => String(p.id) === key);
