@@ -145,8 +145,16 @@ function pairedMotifs(pairs: number, seed: number, variant: number): unknown[] {
 /** Clearance (mm) between motifs on one plane: one material thickness. */
 const MOTIF_GAP = 3;
 
-function designOf(motifs: unknown[]): ResolvedDesign {
-  const parsed = parseDesign({
+/**
+ * The design document of the benchmark lattice (see {@link makeDesign}), as a participant would
+ * upload it. Exported for the viewer benchmark.
+ */
+export function benchDocument(pairs: number, seed: number, variant = 0): { motifs: unknown[] } & Record<string, unknown> {
+  return documentOf(pairedMotifs(pairs, seed, variant));
+}
+
+function documentOf(motifs: unknown[]): { motifs: unknown[] } & Record<string, unknown> {
+  return {
     format: 'planewright/design@1',
     title: 'Benchmark lattice',
     symmetry: 'I',
@@ -154,7 +162,11 @@ function designOf(motifs: unknown[]): ResolvedDesign {
     families: [{ id: 'f2', axis: 2, offset: 60 }, { id: 'f5', axis: 5, offset: 75 }],
     motifs,
     constraints: { sheet: [1220, 2440] },
-  });
+  };
+}
+
+function designOf(motifs: unknown[]): ResolvedDesign {
+  const parsed = parseDesign(documentOf(motifs));
   if (!parsed.ok) throw new Error(`benchmark design invalid: ${JSON.stringify(parsed.errors.slice(0, 3))}`);
   return parsed.design;
 }
