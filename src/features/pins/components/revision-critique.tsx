@@ -1,6 +1,6 @@
 import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import type { CreatePinBody, Pin } from '../../../../shared/api/critique.js';
+import type { CameraView, CreatePinBody, Pin } from '../../../../shared/api/critique.js';
 import type { StudioRole } from '../../../../shared/api/roles.js';
 import type { AuditReportDto, RevisionDetail } from '../../../../shared/api/revisions.js';
 import { Button } from '../../../components/ui/button.js';
@@ -95,6 +95,7 @@ export function RevisionCritique({
   const [draft, setDraft] = useState<{ at: PinDraft; values?: NewPinValues; problem?: string } | null>(null);
   const [view, setView] = useState<ViewerPins['view']>(null);
   const panel = useRef<HTMLDivElement>(null);
+  const cameraRef = useRef<(() => CameraView) | null>(null);
 
   const cancelPlacing = useCallback(() => {
     setPlacing(false);
@@ -165,7 +166,8 @@ export function RevisionCritique({
   const save = (body: CreatePinBody, values: NewPinValues) => {
     const at = draft?.at;
     setDraft(null);
-    create.mutate(body, {
+    // The view at the moment of saving (the author may have turned the model while writing).
+    create.mutate({ ...body, camera: cameraRef.current?.() ?? body.camera }, {
       onSuccess: (pin) => setSelected({ revisionId: revision.id, pinId: pin.id }),
       onError: (error) => {
         if (at) setDraft({ at, values, problem: describeError(error) });
@@ -183,6 +185,7 @@ export function RevisionCritique({
       onPlace,
       draft: draft?.at.anchor ?? null,
       view,
+      cameraRef,
     }),
     [viewerPins, selectedId, onMarker, canPlace, placing, onPlace, draft, view],
   );

@@ -69,6 +69,8 @@ export interface ViewerPins {
   readonly draft: PinAnchor | null;
   /** A saved view to fly to; a new `key` flies again. */
   readonly view: { readonly key: number; readonly camera: CameraView } | null;
+  /** Filled with a reader of the current camera while the model is shown (for saving a pin's view). */
+  readonly cameraRef?: RefObject<(() => CameraView) | null>;
 }
 
 /** What the viewer is asked to show: some pieces and a label naming them. */
@@ -228,18 +230,21 @@ function CameraRig({ scene, fitKey, goal, view }: { scene: Scene; fitKey: number
 }
 
 /** Lets the page outside the canvas read the camera (position and orbit target) when it needs it. */
-function CameraReader({ target }: { target: RefObject<(() => CameraView) | null> }) {
+function CameraReader({ target, also }: { target: RefObject<(() => CameraView) | null>; also?: RefObject<(() => CameraView) | null> }) {
   const camera = useThree((s) => s.camera);
   const controls = useThree((s) => s.controls) as unknown as { target: Vector3 } | null;
   useEffect(() => {
-    target.current = () => {
+    const read = (): CameraView => {
       const t = controls?.target ?? new Vector3(0, 0, 0);
       return { position: [camera.position.x, camera.position.y, camera.position.z], target: [t.x, t.y, t.z] };
     };
+    target.current = read;
+    if (also) also.current = read;
     return () => {
       target.current = null;
+      if (also && also.current === read) also.current = null;
     };
-  }, [camera, controls, target]);
+  }, [camera, controls, target, also]);
   return null;
 }
 
@@ -371,27 +376,31 @@ function ViewerBody({ scene, pieces, groups, focus, onClearFocus, pins, layout, 
   const draft = pins?.draft ?? null;
   const markerPoints = useMemo(() => {
     if (!pins) return NO_PIN_POINTS;
-    const at = (anchor: PinAnchor | ViewerPin['anchor']): Vec3 | null => {
+    const at = (anchor: PinAnchor | ViewerPin['anchor']): { position: Vec3; facing: Vec3 } | null => {
       const piece = pieceById.get(anchor.piece);
       if (!piece) return null;
       const p = pinWorldPosition(piece.frame, anchor, scene.thickness);
       const e = instances.get(anchor.piece)?.explode ?? [0, 0, 0];
-      return [p[0] + e[0] * explodeMm, p[1] + e[1] * explodeMm, p[2] + e[2] * explodeMm];
+      const n = piece.frame.normal;
+      return {
+        position: [p[0] + e[0] * explodeMm, p[1] + e[1] * explodeMm, p[2] + e[2] * explodeMm],
+        facing: [n[0] * anchor.side, n[1] * anchor.side, n[2] * anchor.side],
+      };
     };
     const out: MarkerPoint[] = [];
     for (const { pin, copies } of pinAnchors) {
       copies.forEach((c, i) => {
-        const position = at(c);
-        if (position) out.push({ key: `${pin.key}~${i}`, kind: 'copy', position });
+        const place = at(c);
+        if (place) out.push({ key: `${pin.key}~${i}`, kind: 'copy', ...place });
       });
     }
     for (const { pin } of pinAnchors) {
-      const position = at(pin.anchor);
-      if (position) out.push({ key: pin.key, kind: 'pin', position, pin });
+      const place = at(pin.anchor);
+      if (place) out.push({ key: pin.key, kind: 'pin', ...place, pin });
     }
     if (draft) {
-      const position = at(draft);
-      if (position) out.push({ key: 'draft', kind: 'draft', position });
+      const place = at(draft);
+      if (place) out.push({ key: 'draft', kind: 'draft', ...place });
     }
     return out;
   }, [pins, pinAnchors, draft, pieceById, instances, scene.thickness, explodeMm]);
@@ -532,7 +541,7 @@ function ViewerBody({ scene, pieces, groups, focus, onClearFocus, pins, layout, 
             {showJoints && explode === 0 && !cutOn && scene.joints.length ? <JointOverlay joints={scene.joints} size={markerSize} emphasis={emphasis} dimmed={dimmedJoints} /> : null}
             <OrbitControls makeDefault enableDamping={false} />
             <CameraRig scene={scene} fitKey={fitKey} goal={goal} view={pins?.view ?? null} />
-            <CameraReader target={cameraOf} />
+            <CameraReader target={cameraOf} also={pins?.cameraRef} />
             {markerPoints.length ? <MarkerProjector points={markerPoints} registry={markerEls} clip={clip} /> : null}
             <RenderProbe target={frame} />
           </Canvas>

@@ -36,7 +36,7 @@ export function PinMarkerLayer({
         <div
           key={p.key}
           ref={register(p.key)}
-          className={`absolute left-0 top-0 h-0 w-0 [&[data-cut]]:opacity-45 ${p.kind === 'copy' ? '' : p.pin && selected === p.pin.key ? 'z-30' : p.kind === 'draft' ? 'z-20' : 'z-10'}`}
+          className={`absolute left-0 top-0 h-0 w-0 [&[data-away]]:opacity-60 [&[data-cut]]:opacity-45 ${p.kind === 'copy' ? '' : p.pin && selected === p.pin.key ? 'z-30' : p.kind === 'draft' ? 'z-20' : 'z-10'}`}
           style={{ visibility: 'hidden' }}
         >
           {p.kind === 'copy' ? (
