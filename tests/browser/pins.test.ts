@@ -96,6 +96,8 @@ it('a critic pins a piece, the participant answers and resolves, and the critic 
   await expect.poll(() => critic.getByTestId('new-pin-form').getByRole('heading').innerText()).toBe(`New pin on ${label}`);
   await critic.keyboard.press('Escape');
   await expect.poll(() => critic.getByTestId('new-pin-form').count()).toBe(0);
+  // The keyboard goes back to the button that starts placing.
+  await expect.poll(() => critic.locator(':focus').getAttribute('aria-keyshortcuts')).toBe('P');
   await expectAccessible(critic, 'the revision page with a pin, as critic');
 
   // The participant presses the pin's marker (by keyboard: markers of other pins may overlap

@@ -96,11 +96,19 @@ export function RevisionCritique({
   const [view, setView] = useState<ViewerPins['view']>(null);
   const panel = useRef<HTMLDivElement>(null);
   const cameraRef = useRef<(() => CameraView) | null>(null);
+  const focusPlaceButton = useCallback(
+    () => requestAnimationFrame(() => panel.current?.querySelector<HTMLButtonElement>('button[aria-keyshortcuts="P"]')?.focus({ preventScroll: true })),
+    [],
+  );
 
+  const hasDraft = useRef(false);
+  hasDraft.current = draft !== null;
   const cancelPlacing = useCallback(() => {
+    // Leaving the form hands the keyboard back to the button that started placing.
+    if (hasDraft.current) focusPlaceButton();
     setPlacing(false);
     setDraft(null);
-  }, []);
+  }, [focusPlaceButton]);
 
   // P toggles place-a-pin mode and Escape leaves it, anywhere on the page but in a text box.
   useEffect(() => {
@@ -166,6 +174,7 @@ export function RevisionCritique({
   const save = (body: CreatePinBody, values: NewPinValues) => {
     const at = draft?.at;
     setDraft(null);
+    focusPlaceButton();
     // The view at the moment of saving (the author may have turned the model while writing).
     create.mutate({ ...body, camera: cameraRef.current?.() ?? body.camera }, {
       onSuccess: (pin) => setSelected({ revisionId: revision.id, pinId: pin.id }),
