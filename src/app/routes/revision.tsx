@@ -107,7 +107,7 @@ export function Component() {
           description="Every piece as a slab of the material, coloured by family, with the audit's joints; critics' pins and their threads beside it."
         />
         {audit.state === 'failed' && !report ? <p className="mb-3 text-sm text-ink-soft">The model is shown once an audit succeeds.</p> : null}
-        <RevisionCritique revision={revision} report={report} viewer={critiqueViewer} focus={focus} onClearFocus={onClearFocus} />
+        <RevisionCritique key={revision.id} revision={revision} report={report} viewer={critiqueViewer} focus={focus} onClearFocus={onClearFocus} />
       </Card>
 
       {report ? (

@@ -189,8 +189,11 @@ function CameraRig({ scene, fitKey, goal, view }: { scene: Scene; fitKey: number
     // fitKey only re-runs the framing.
   }, [camera, controls, scene, fitKey, goal, invalidate]);
   // A saved view (a pin's camera): fly from where the camera is to exactly that position and target.
+  const lastView = useRef<ViewerPins['view']>(null);
   useEffect(() => {
-    if (!view || !(camera instanceof PerspectiveCamera)) return;
+    // Only a new view flies (not a new scene or camera under an old one).
+    if (!view || view === lastView.current || !(camera instanceof PerspectiveCamera)) return;
+    lastView.current = view;
     const to = new Vector3(...view.camera.position);
     const toTarget = new Vector3(...view.camera.target);
     const dist = Math.max(to.distanceTo(toTarget), 1e-3);
