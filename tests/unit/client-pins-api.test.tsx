@@ -99,35 +99,43 @@ describe('useRevisionPins', () => {
 });
 
 describe('useCreatePin', () => {
-  it('shows the pin at once, then swaps in the server answer', async () => {
-    client.setQueryData(pinKeys.list(12), revisionPins([pin({ id: 1 })]));
+  it('shows the pin at once in the watched list, then swaps in the server answer', async () => {
     let answer: (r: Response) => void = () => {};
+    fetchMock.mockResolvedValueOnce(json(200, revisionPins([pin({ id: 1 })], { version: 'v1' })));
     fetchMock.mockImplementationOnce(() => new Promise<Response>((resolve) => (answer = resolve)));
     fetchMock.mockImplementation(async () => json(200, revisionPins([pin({ id: 1 }), pin({ id: 9, number: 2 })], { version: 'v9' })));
-    const { result } = renderHook(() => useCreatePin(12, CRITIC), { wrapper });
-    act(() => result.current.mutate(body));
-    await waitFor(() => expect(client.getQueryData<RevisionPins>(pinKeys.list(12))?.pins).toHaveLength(2));
-    const temp = client.getQueryData<RevisionPins>(pinKeys.list(12))!.pins[1];
+    // The list is watched as on the page, so its structural sharing applies to the optimistic entry too.
+    const { result } = renderHook(() => ({ list: useRevisionPins(12), create: useCreatePin(12, CRITIC) }), { wrapper });
+    await waitFor(() => expect(result.current.list.isSuccess).toBe(true));
+    act(() => result.current.create.mutate(body));
+    await waitFor(() => expect(result.current.list.data?.pins).toHaveLength(2));
+    const temp = result.current.list.data!.pins[1];
     expect(temp.id).toBeLessThan(0);
     expect(temp.number).toBe(2);
     expect(temp.anchor).toEqual(body.anchor);
     expect(temp.comments[0].body).toBe('Slot looks tight.');
-    const [url, init] = fetchMock.mock.calls[0];
+    const [url, init] = fetchMock.mock.calls[1];
     expect(url).toBe('/api/revisions/12/pins');
+    expect(init?.method).toBe('POST');
     expect(JSON.parse(String(init?.body))).toEqual(body);
     await act(async () => answer(json(201, pin({ id: 9, number: 2 }))));
-    await waitFor(() => expect(client.getQueryData<RevisionPins>(pinKeys.list(12))?.pins.map((p) => p.id)).toEqual([1, 9]));
+    await waitFor(() => expect(result.current.list.data?.pins.map((p) => p.id)).toEqual([1, 9]));
   });
 
-  it('takes the pin back out when the server refuses it', async () => {
-    client.setQueryData(pinKeys.list(12), revisionPins([pin({ id: 1 })]));
-    fetchMock.mockResolvedValueOnce(json(403, { error: { code: 'forbidden', message: 'Only assigned critics pin here.' } }));
-    fetchMock.mockResolvedValue(json(200, revisionPins([pin({ id: 1 })])));
-    const { result } = renderHook(() => useCreatePin(12, CRITIC), { wrapper });
-    act(() => result.current.mutate(body));
-    await waitFor(() => expect(result.current.isError).toBe(true));
-    expect(result.current.error?.message).toBe('Only assigned critics pin here.');
-    expect(client.getQueryData<RevisionPins>(pinKeys.list(12))?.pins.map((p) => p.id)).toEqual([1]);
+  it('takes the pin back out of the watched list when the server refuses it', async () => {
+    let refuse: (r: Response) => void = () => {};
+    fetchMock.mockResolvedValueOnce(json(200, revisionPins([pin({ id: 1 })], { version: 'v1' })));
+    fetchMock.mockImplementationOnce(() => new Promise<Response>((resolve) => (refuse = resolve)));
+    // The refetch after the refusal hangs, so what the list shows is the rollback itself.
+    fetchMock.mockImplementation(() => new Promise<Response>(() => {}));
+    const { result } = renderHook(() => ({ list: useRevisionPins(12), create: useCreatePin(12, CRITIC) }), { wrapper });
+    await waitFor(() => expect(result.current.list.isSuccess).toBe(true));
+    act(() => result.current.create.mutate(body));
+    await waitFor(() => expect(result.current.list.data?.pins).toHaveLength(2));
+    await act(async () => refuse(json(403, { error: { code: 'forbidden', message: 'Only assigned critics pin here.' } })));
+    await waitFor(() => expect(result.current.create.isError).toBe(true));
+    expect(result.current.create.error?.message).toBe('Only assigned critics pin here.');
+    await waitFor(() => expect(result.current.list.data?.pins.map((p) => p.id)).toEqual([1]));
   });
 
   it('numbers the optimistic pin after the highest number so far', () => {

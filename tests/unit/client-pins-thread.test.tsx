@@ -1,13 +1,20 @@
 // @vitest-environment jsdom
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { QueryClient, QueryClientProvider, useQuery } from '@tanstack/react-query';
 import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import type { Pin } from '../../shared/api/critique.js';
+import { revisionPinsQueryOptions } from '../../src/features/pins/api/get-revision-pins.js';
 import { pinKeys } from '../../src/features/pins/api/keys.js';
 import { PinThread } from '../../src/features/pins/components/pin-thread.js';
 import { PARTICIPANT, comment, json, pin, revisionPins } from './client-pins-fixtures.test.js';
 
 const fetchMock = vi.fn<typeof fetch>();
+
+/** Watches the list as the page does (its structural sharing then applies to every cache edit), without fetching. */
+function WatchList() {
+  useQuery({ ...revisionPinsQueryOptions(12), staleTime: Infinity });
+  return null;
+}
 
 function renderThread(p: Pin, rights = { canReply: true, canResolve: true, canChangeCategory: false }) {
   const client = new QueryClient({ defaultOptions: { queries: { retry: false }, mutations: { retry: false } } });
@@ -15,6 +22,7 @@ function renderThread(p: Pin, rights = { canReply: true, canResolve: true, canCh
   const onClose = vi.fn();
   const utils = render(
     <QueryClientProvider client={client}>
+      <WatchList />
       <PinThread pin={p} revisionId={12} {...rights} onClose={onClose} />
     </QueryClientProvider>,
   );

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CreatePinBody, Pin, RevisionPins } from '../../../../shared/api/critique.js';
 import { api } from '../../../lib/api-client.js';
-import { putPinInCache } from './cache.js';
+import { editCachedPins, putPinInCache } from './cache.js';
 import { pinKeys } from './keys.js';
 
 /** `POST /api/revisions/:revisionId/pins` (instructor or assigned critic): a new pin with its first comment. */
@@ -61,9 +61,12 @@ export function useCreatePin(revisionId: number, author: PinAuthor) {
     },
     onError: (_error, _body, context) => {
       const tempId = context?.tempId;
-      if (tempId != null) queryClient.setQueryData<RevisionPins>(key, (d) => (d ? { ...d, pins: d.pins.filter((p) => p.id !== tempId) } : d));
+      if (tempId != null) editCachedPins(queryClient, revisionId, (pins) => pins.filter((p) => p.id !== tempId));
     },
     onSuccess: (pin, _body, context) => putPinInCache(queryClient, revisionId, pin, context?.tempId ?? pin.id),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: key }),
+    // Not awaited: the mutation is done when the server answered, the refetch catches up after.
+    onSettled: () => {
+      void queryClient.invalidateQueries({ queryKey: key });
+    },
   });
 }

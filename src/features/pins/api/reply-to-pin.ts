@@ -18,6 +18,9 @@ export function useReplyToPin(revisionId: number) {
       patchPinInCache(queryClient, revisionId, pinId, (p) =>
         p.comments.some((c) => c.id === comment.id) ? p : { ...p, comments: [...p.comments, comment], updatedAt: comment.createdAt },
       ),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: pinKeys.list(revisionId) }),
+    // Not awaited: the mutation is done when the server answered, the refetch catches up after.
+    onSettled: () => {
+      void queryClient.invalidateQueries({ queryKey: pinKeys.list(revisionId) });
+    },
   });
 }

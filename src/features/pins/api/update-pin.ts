@@ -15,6 +15,9 @@ export function useUpdatePin(revisionId: number) {
   return useMutation({
     mutationFn: ({ pinId, change }: { pinId: number; change: UpdatePinBody }) => updatePin(pinId, change),
     onSuccess: (pin) => putPinInCache(queryClient, revisionId, { ...pin, revisionId }),
-    onSettled: () => queryClient.invalidateQueries({ queryKey: pinKeys.list(revisionId) }),
+    // Not awaited: the mutation is done when the server answered, the refetch catches up after.
+    onSettled: () => {
+      void queryClient.invalidateQueries({ queryKey: pinKeys.list(revisionId) });
+    },
   });
 }
