@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { act, cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
 import type { AuditReportDto } from '../../shared/api/revisions.js';
 import cubePlates from '../fixtures/designs/o-cube-plates.json';
@@ -65,6 +65,26 @@ describe('RevisionCritique states', () => {
     renderCritique({ viewer: owner });
     expect(await screen.findByText("No comments yet; critics' pins appear here.")).toBeTruthy();
     expect(screen.queryByRole('button', { name: /Place a pin/ })).toBeNull();
+  });
+
+  it('says when a poll brings pins or replies from someone else', async () => {
+    vi.useFakeTimers({ shouldAdvanceTime: true });
+    try {
+      fetchMock.mockResolvedValueOnce(json(200, revisionPins([pin({ id: 1 })], { version: 'a' })));
+      fetchMock.mockResolvedValue(
+        json(200, revisionPins([pin({ id: 1 }), pin({ id: 2, author: { id: 8, name: 'Ilse Varga' } })], { version: 'b' })),
+      );
+      renderCritique();
+      await screen.findByTestId('pin-list');
+      expect(screen.queryByTestId('pin-news')).toBeNull();
+      await act(async () => {
+        await vi.advanceTimersByTimeAsync(5_100);
+      });
+      expect((await screen.findByTestId('pin-news')).textContent).toContain('Just in: 1 new pin.');
+      expect(within(screen.getByTestId('pin-list')).getAllByRole('button')).toHaveLength(2);
+    } finally {
+      vi.useRealTimers();
+    }
   });
 
   it('names the pins that stayed on an earlier revision, with a link there', async () => {

@@ -3,8 +3,8 @@ import { useState } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, fireEvent, render, screen, within } from '@testing-library/react';
 import { PinList } from '../../src/features/pins/components/pin-list.js';
-import { ALL_PINS, type PinFilters, filterPins, firstWords, pinLabel } from '../../src/features/pins/components/pin-words.js';
-import { comment, pin } from './client-pins-fixtures.test.js';
+import { ALL_PINS, type PinFilters, filterPins, firstWords, newActivity, pinLabel } from '../../src/features/pins/components/pin-words.js';
+import { CRITIC, PARTICIPANT, comment, pin } from './client-pins-fixtures.test.js';
 
 afterEach(cleanup);
 
@@ -95,5 +95,21 @@ describe('pin words', () => {
 
   it('pinLabel names state, category, piece and orbit in words', () => {
     expect(pinLabel(pins[2])).toBe('Pin 3: open, outdated, Form, on panel-02 and its orbit');
+  });
+});
+
+describe('newActivity', () => {
+  const before = [pin({ id: 1, comments: [comment(10, 'a')] })];
+  it('counts pins and replies others added, in words', () => {
+    const after = [
+      pin({ id: 1, comments: [comment(10, 'a'), comment(11, 'b', PARTICIPANT), comment(12, 'c', PARTICIPANT)] }),
+      pin({ id: 2, author: { id: PARTICIPANT.id, name: PARTICIPANT.name } }),
+    ];
+    expect(newActivity(before, after, CRITIC.id)).toBe('1 new pin and 2 new replies');
+  });
+
+  it('leaves out what the person added themselves and optimistic entries', () => {
+    const after = [pin({ id: 1, comments: [comment(10, 'a'), comment(11, 'mine', CRITIC)] }), pin({ id: 2 }), pin({ id: -4, author: { id: 99, name: 'x' } })];
+    expect(newActivity(before, after, CRITIC.id)).toBeNull();
   });
 });

@@ -44,3 +44,25 @@ export function pinLabel(pin: Pin): string {
 export function plural(n: number, one: string, many: string): string {
   return `${n} ${n === 1 ? one : many}`;
 }
+
+/**
+ * What others added between two fetched lists, in words ("1 new pin and 2 new replies"), or
+ * null when nothing: pins and comments by `me` and optimistic entries (negative ids) are left
+ * out, since the person saw them appear.
+ */
+export function newActivity(before: readonly Pin[], after: readonly Pin[], me: number | null): string | null {
+  const old = new Map(before.map((p) => [p.id, new Set(p.comments.map((c) => c.id))]));
+  let pins = 0;
+  let replies = 0;
+  for (const p of after) {
+    if (p.id < 0) continue;
+    const seen = old.get(p.id);
+    if (!seen) {
+      if (p.author.id !== me) pins++;
+      continue;
+    }
+    for (const c of p.comments) if (c.id > 0 && !seen.has(c.id) && c.author.id !== me) replies++;
+  }
+  const parts = [pins ? plural(pins, 'new pin', 'new pins') : '', replies ? plural(replies, 'new reply', 'new replies') : ''].filter(Boolean);
+  return parts.length ? parts.join(' and ') : null;
+}

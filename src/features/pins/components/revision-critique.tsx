@@ -13,7 +13,7 @@ import { PIN_POLL_MS, useRevisionPins } from '../api/get-revision-pins.js';
 import { type NewPinValues, NewPinForm, type PinDraft } from './new-pin-form.js';
 import { PinList } from './pin-list.js';
 import { PinThread } from './pin-thread.js';
-import { ALL_PINS, type PinFilters, filterPins, pinLabel, plural } from './pin-words.js';
+import { ALL_PINS, type PinFilters, filterPins, newActivity, pinLabel, plural } from './pin-words.js';
 
 // three.js and the viewer load only when a model is shown.
 const ModelViewer = lazy(() => import('../../viewer/components/model-viewer.js'));
@@ -95,6 +95,18 @@ export function RevisionCritique({
   const [draft, setDraft] = useState<{ at: PinDraft; values?: NewPinValues; problem?: string } | null>(null);
   const [view, setView] = useState<ViewerPins['view']>(null);
   const panel = useRef<HTMLDivElement>(null);
+  // New pins and replies from others, said once in the live region when a poll brings them.
+  const [news, setNews] = useState<string | null>(null);
+  const lastPins = useRef<readonly Pin[] | null>(null);
+  useEffect(() => {
+    if (!data) return;
+    const before = lastPins.current;
+    lastPins.current = data.pins;
+    if (before) {
+      const said = newActivity(before, data.pins, viewer?.id ?? null);
+      if (said) setNews(`Just in: ${said}.`);
+    }
+  }, [data, viewer?.id]);
   const cameraRef = useRef<(() => CameraView) | null>(null);
   const focusPlaceButton = useCallback(
     () => requestAnimationFrame(() => panel.current?.querySelector<HTMLButtonElement>('button[aria-keyshortcuts="P"]')?.focus({ preventScroll: true })),
@@ -242,6 +254,14 @@ export function RevisionCritique({
         </div>
         <div aria-live="polite" className="text-sm">
           {placing ? <p className="text-accent-strong">Click a piece on the model, or choose one with the arrow keys and press Enter.</p> : null}
+          {news ? (
+            <p className="flex flex-wrap items-center gap-2 text-ink-soft" data-testid="pin-news">
+              {news}
+              <button type="button" className="text-xs underline focus-visible:outline-2 focus-visible:outline-accent" onClick={() => setNews(null)}>
+                Dismiss
+              </button>
+            </p>
+          ) : null}
         </div>
         {data?.outdatedEarlier.length ? (
           <ul className="space-y-1 rounded-md border border-dashed border-rule-strong px-3 py-2 text-sm" data-testid="outdated-earlier">
