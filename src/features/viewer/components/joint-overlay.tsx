@@ -134,7 +134,8 @@ function Markers({ joints, geometry, material, size, emphasis, dimmed, colour, i
       d.set(j.to[0] - j.from[0], j.to[1] - j.from[1], j.to[2] - j.from[2]);
       if (d.lengthSq() > 0) q.setFromUnitVectors(z, d.normalize());
       else q.identity();
-      const k = emphasis.has(j.index) ? size * 1.8 : size;
+      // Dimmed joints also shrink: a near-white marker faded towards the paper would barely change.
+      const k = (emphasis.has(j.index) ? size * 1.8 : size) * (dimmed?.has(j.index) ? 0.7 : 1);
       s.set(k, k, k);
       m.compose(p, q, s);
       im.setMatrixAt(i, m);
