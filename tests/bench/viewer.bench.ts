@@ -29,7 +29,7 @@ import { performance } from 'node:perf_hooks';
 import { fileURLToPath } from 'node:url';
 import { gzipSync } from 'node:zlib';
 import { Jimp } from 'jimp';
-import type { Page, Response } from 'playwright-core';
+import type { Locator, Page, Response } from 'playwright-core';
 import { BufferAttribute, BufferGeometry, InstancedMesh, Matrix4, MeshBasicMaterial, PerspectiveCamera, Raycaster, Scene as ThreeScene, Vector2, Vector3 } from 'three';
 import { parseDesign } from '../../shared/engine/design.js';
 import type { Piece, ResolvedDesign } from '../../shared/engine/model.js';
@@ -39,7 +39,7 @@ import { type Scene, buildScene } from '../../shared/engine/scene.js';
 import { PAPER, rgbOf } from '../../shared/engine/palette.js';
 import { renderThumbnail } from '../../shared/engine/thumbnail.js';
 import { openBrowser, startApp } from '../browser/support/app.js';
-import { signIn } from '../browser/support/pages.js';
+import { signIn, signOut } from '../browser/support/pages.js';
 import { benchDocument } from './engine.bench.js';
 
 const json = process.argv.includes('--json');
@@ -50,7 +50,7 @@ const root = fileURLToPath(new URL('../../', import.meta.url));
 const clientDir = join(root, 'dist', 'client');
 
 /** Frames timed per model while orbiting. */
-const FRAMES = 90;
+const FRAMES = 60;
 const FIRST_PAGE_BUDGET_KB = 250;
 const DRAW_CALL_SLACK = 20;
 
@@ -231,12 +231,13 @@ async function api<T>(page: Page, url: string, method = 'GET', body?: unknown): 
   return (await page.evaluate(src)) as T;
 }
 
-async function uploadRevision(page: Page, briefId: number, doc: Record<string, unknown>): Promise<number> {
+/** Uploads a revision and waits for its audit; its id and the number of joints the audit found (markers the viewer draws). */
+async function uploadRevision(page: Page, briefId: number, doc: Record<string, unknown>): Promise<{ id: number; joints: number }> {
   const rev = await api<{ id: number }>(page, `/api/briefs/${briefId}/revisions`, 'POST', { design: doc });
   const deadline = Date.now() + 120_000;
   for (;;) {
-    const audit = await api<{ state: string; error: string | null }>(page, `/api/revisions/${rev.id}/audit`);
-    if (audit.state === 'done') return rev.id;
+    const audit = await api<{ state: string; error: string | null; report: { joints: unknown[] } | null }>(page, `/api/revisions/${rev.id}/audit`);
+    if (audit.state === 'done') return { id: rev.id, joints: audit.report?.joints.length ?? 0 };
     if (audit.state === 'failed') throw new Error(`audit of revision ${rev.id} failed: ${audit.error}`);
     if (Date.now() > deadline) throw new Error(`audit of revision ${rev.id} still ${audit.state} after 120 s`);
     await new Promise((r) => setTimeout(r, 250));
@@ -269,7 +270,7 @@ interface OrbitResult {
   pieces: number;
 }
 
-async function orbit(page: Page): Promise<OrbitResult> {
+async function orbit(page: Page, frameCount = FRAMES): Promise<OrbitResult> {
   const viewer = page.getByTestId('model-viewer');
   const canvas = viewer.locator('canvas');
   await viewer.scrollIntoViewIfNeeded();
@@ -283,16 +284,16 @@ async function orbit(page: Page): Promise<OrbitResult> {
   const t0 = Date.now();
   let k = 0;
   // Round and round (a quarter turn of the mouse every 40 moves), until enough frames are drawn.
-  while (Date.now() - t0 < 60_000) {
+  while (Date.now() - t0 < 90_000) {
     k++;
     const a = (k / 40) * (Math.PI / 2);
     await page.mouse.move(cx + radius * Math.cos(a), cy + radius * Math.sin(a) * 0.6);
-    if (k % 10 === 0 && ((await page.evaluate('window.__viewerBench.frames.length')) as number) >= FRAMES + 6) break;
+    if (k % 10 === 0 && ((await page.evaluate('window.__viewerBench.frames.length')) as number) >= frameCount + 6) break;
   }
   await page.mouse.up();
   const frames = (await page.evaluate('(() => { window.__viewerBench.stop(); return window.__viewerBench.frames; })()')) as FrameSample[];
   // Leave out the first frames (the drag starting) and keep FRAMES.
-  const kept = frames.slice(5, 5 + FRAMES + 1);
+  const kept = frames.slice(5, 5 + frameCount + 1);
   const intervals = kept.slice(1).map((f, i) => f.frame - kept[i].frame);
   const renders = kept.map((f) => f.done - f.frame);
   return {
@@ -307,13 +308,23 @@ async function orbit(page: Page): Promise<OrbitResult> {
   };
 }
 
+/** The viewer once it has drawn its first frames, scrolled into view. */
+async function drawnViewer(page: Page): Promise<Locator> {
+  const viewer = page.getByTestId('model-viewer');
+  await viewer.waitFor({ timeout: 60_000 });
+  for (let i = 0; i < 600 && (await viewer.getAttribute('data-draw-calls')) === null; i++) await page.waitForTimeout(100);
+  await viewer.scrollIntoViewIfNeeded();
+  await page.waitForTimeout(500);
+  return viewer;
+}
+
 /**
- * What a click on a piece makes appear, in order: the pin form (when the signed-in person may
- * pin), a new pin marker, else the side panel naming the piece as selected.
+ * What a click on a piece makes appear, in order: the new-pin form (a critic placing a pin), a
+ * new pin marker, else the side panel naming the piece as selected.
  */
 const CLICK_ANSWERS = `[
-  ['pin form', () => Boolean(document.querySelector('[data-testid="pin-form"]'))],
-  ['pin marker', () => document.querySelectorAll('[data-testid="pin-marker"]').length > (window.__markersBefore ?? 0)],
+  ['new-pin form', () => Boolean(document.querySelector('[data-testid="new-pin-form"]'))],
+  ['pin marker', () => document.querySelectorAll('[data-pin-marker]').length > (window.__markersBefore ?? 0)],
   ['selected-piece panel', () => (document.querySelector('[data-testid="piece-panel"]')?.textContent ?? '').includes('Selected piece')],
 ]`;
 
@@ -321,6 +332,8 @@ interface ClickResult {
   ms: number;
   frames: number;
   answer: string;
+  /** The viewer was in pin-placing mode when clicked (P pressed first). */
+  placing: boolean;
 }
 
 /** A point of the canvas (page coordinates) where the model is drawn solidly, nearest the centre. */
@@ -355,11 +368,23 @@ async function pointOnModel(page: Page): Promise<{ x: number; y: number }> {
 
 /** From pointer-down on the canvas to the first of {@link CLICK_ANSWERS} turning true, in the page's clock (and in drawn frames). */
 async function clickLatency(page: Page): Promise<ClickResult | null> {
+  // A fresh page: nothing selected, nothing being placed.
+  await page.reload();
+  const viewer = await drawnViewer(page);
+  // A critic places a pin: the "Place a pin" button (once the pins have loaded), then a click on a piece.
+  const place = page.getByRole('button', { name: /^Place a pin/ });
+  await place.waitFor({ timeout: 15_000 }).catch(() => undefined);
+  if (await place.count()) await place.click();
+  let placing = false;
+  for (let i = 0; i < 30 && !placing; i++) {
+    placing = (await viewer.getAttribute('data-placing')) === 'true';
+    if (!placing) await page.waitForTimeout(100);
+  }
   await page.mouse.move(1, 1);
-  await page.waitForTimeout(200);
+  await page.waitForTimeout(300);
   const at = await pointOnModel(page);
   await page.evaluate(`(() => {
-    window.__markersBefore = document.querySelectorAll('[data-testid="pin-marker"]').length;
+    window.__markersBefore = document.querySelectorAll('[data-pin-marker]').length;
     const answers = ${CLICK_ANSWERS}.filter(([, test]) => !test());
     const el = document.querySelector('[data-testid="model-viewer"]');
     const state = { down: null, seen: null, answer: null, frames: 0 };
@@ -377,8 +402,16 @@ async function clickLatency(page: Page): Promise<ClickResult | null> {
   const deadline = Date.now() + 10_000;
   for (;;) {
     const s = (await page.evaluate('window.__clickBench')) as { down: number | null; seen: number | null; answer: string | null; frames: number };
-    if (s.seen !== null && s.down !== null) return { ms: r2(s.seen - s.down), frames: s.frames, answer: s.answer! };
-    if (Date.now() > deadline) return null;
+    if (s.seen !== null && s.down !== null) {
+      // Leave the form unsaved: Escape closes it (and any placing).
+      await page.keyboard.press('Escape');
+      return { ms: r2(s.seen - s.down), frames: s.frames, answer: s.answer!, placing };
+    }
+    if (Date.now() > deadline) {
+      log(`click at ${at.x.toFixed(0)}, ${at.y.toFixed(0)}: no answer within 10 s (pointer-down ${s.down === null ? 'not seen' : 'seen'}, placing ${placing})`);
+      await page.keyboard.press('Escape');
+      return null;
+    }
     await new Promise((r) => setTimeout(r, 50));
   }
 }
@@ -410,7 +443,10 @@ async function scriptsFetched(page: Page, act: () => Promise<void>): Promise<Map
 
 interface ModelFigures extends OrbitResult {
   revisionId: number;
+  joints: number;
   click: ClickResult | null;
+  /** Frame interval with the joint overlay hidden ("Show joints" off), to tell the slabs' cost from the markers'. */
+  frameMsWithoutJoints: number;
 }
 
 async function inBrowser(all: BenchDesign[]): Promise<{ models: Record<string, ModelFigures>; signInFetched: Map<string, number>; dashboardFetched: Map<string, number> }> {
@@ -427,24 +463,43 @@ async function inBrowser(all: BenchDesign[]): Promise<{ models: Record<string, M
     });
     const dashboardFetched = await scriptsFetched(page, () => signIn(page, app.url, 'participant@example.org'));
 
-    const briefs = await api<{ id: number; title: string }[]>(page, '/api/studios/1/briefs');
-    const brief = briefs.find((b) => /icosahedral/i.test(b.title));
-    if (!brief) throw new Error(`no icosahedral brief in the demo (briefs: ${briefs.map((b) => b.title).join(', ')})`);
+    // Each model is the latest revision of a submission the demo critic is assigned to (pins go
+    // on a submission's latest revision): the 180 pieces from participant@ on the icosahedral
+    // brief, the 1,200 from lars.brennholt@ on the octahedral one (the brief's rules only add findings).
+    const uploaders: Record<string, { email: string; brief: RegExp }> = {
+      '180': { email: 'participant@example.org', brief: /icosahedral/i },
+      '1200': { email: 'lars.brennholt@example.org', brief: /octahedral/i },
+    };
+    const revisions = new Map<string, { id: number; joints: number }>();
+    for (const d of all) {
+      const who = uploaders[d.label];
+      if (!page.url().startsWith(app.url) || (await api<{ email: string }>(page, '/api/auth/me').catch(() => null))?.email !== who.email) {
+        if (await page.getByRole('button', { name: /sign out/i }).count()) await signOut(page);
+        await signIn(page, app.url, who.email);
+      }
+      const briefs = await api<{ id: number; title: string }[]>(page, '/api/studios/1/briefs');
+      const brief = briefs.find((b) => who.brief.test(b.title));
+      if (!brief) throw new Error(`no brief matching ${who.brief} in the demo (briefs: ${briefs.map((b) => b.title).join(', ')})`);
+      revisions.set(d.label, await uploadRevision(page, brief.id, d.doc));
+      log(`revision ${revisions.get(d.label)!.id}: ${d.label} pieces by ${who.email}, audited (${revisions.get(d.label)!.joints} joints)`);
+    }
+    // The critic assigned to both submissions opens the revisions and places pins.
+    await signOut(page);
+    await signIn(page, app.url, 'critic@example.org');
     const models: Record<string, ModelFigures> = {};
     for (const d of all) {
-      const revisionId = await uploadRevision(page, brief.id, d.doc);
-      log(`revision ${revisionId}: ${d.label} pieces, audited`);
+      const { id: revisionId, joints } = revisions.get(d.label)!;
       await page.goto(`${app.url}/revisions/${revisionId}`);
-      const viewer = page.getByTestId('model-viewer');
-      await viewer.waitFor({ timeout: 60_000 });
-      for (let i = 0; i < 600 && (await viewer.getAttribute('data-draw-calls')) === null; i++) await page.waitForTimeout(100);
-      await page.waitForTimeout(500);
+      await drawnViewer(page);
       const t0 = Date.now();
       const o = await orbit(page);
       log(`${d.label} pieces: ${o.frames} frames timed while orbiting in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
-      await page.waitForTimeout(300);
+      await page.getByLabel('Show joints').uncheck();
+      await page.waitForTimeout(500);
+      const bare = await orbit(page, 20);
+      await page.getByLabel('Show joints').check();
       const click = await clickLatency(page);
-      models[d.label] = { revisionId, ...o, click };
+      models[d.label] = { revisionId, joints, ...o, click, frameMsWithoutJoints: bare.frameMs };
     }
     return { models, signInFetched, dashboardFetched };
   } finally {
@@ -487,6 +542,7 @@ async function main(): Promise<void> {
   const out = {
     pieces1200: big.pieces,
     templates1200: big.templates,
+    joints1200: big.joints,
     drawCalls1200: big.drawCalls,
     frameMs1200: big.frameMs,
     frameP95Ms1200: big.frameP95Ms,
@@ -494,19 +550,23 @@ async function main(): Promise<void> {
     renderP95Ms1200: big.renderP95Ms,
     pieces180: small.pieces,
     templates180: small.templates,
+    joints180: small.joints,
     drawCalls180: small.drawCalls,
     frameMs180: small.frameMs,
     frameP95Ms180: small.frameP95Ms,
     renderMs180: small.renderMs,
     renderP95Ms180: small.renderP95Ms,
     frameRatio: r2(big.frameMs / small.frameMs),
+    frameMsWithoutJoints1200: big.frameMsWithoutJoints,
+    frameMsWithoutJoints180: small.frameMsWithoutJoints,
     renderRatio: r2(big.renderMs / small.renderMs),
     framesTimed: Math.min(big.frames, small.frames),
     clickToAnswerMs1200: big.click?.ms ?? null,
     clickFrames1200: big.click?.frames ?? null,
     clickToAnswerMs180: small.click?.ms ?? null,
     clickFrames180: small.click?.frames ?? null,
-    clickAnswer: big.click?.answer ?? small.click?.answer ?? null,
+    clickAnswer1200: big.click ? `${big.click.answer}${big.click.placing ? ' (placing a pin)' : ''}` : null,
+    clickAnswer180: small.click ? `${small.click.answer}${small.click.placing ? ' (placing a pin)' : ''}` : null,
     raycastAnchorMs1200: r2(node['1200'].click.ms),
     raycastAnchorMs180: r2(node['180'].click.ms),
     raycastHitShare1200: r2(node['1200'].click.hitShare),
