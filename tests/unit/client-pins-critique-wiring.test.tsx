@@ -8,7 +8,7 @@ import { act, cleanup, fireEvent, render, screen, waitFor, within } from '@testi
 import { MemoryRouter } from 'react-router-dom';
 import type { AuditReportDto } from '../../shared/api/revisions.js';
 import type { ModelViewerProps, ViewerPins } from '../../src/features/viewer/components/model-viewer.js';
-import { RevisionCritique } from '../../src/features/pins/components/revision-critique.js';
+import { RevisionCritique } from '../../src/app/compositions/revision-critique.js';
 import { CRITIC, PARTICIPANT, json, pin, revisionPins } from './client-pins-fixtures.test.js';
 
 const seen: { pins: ViewerPins | null } = { pins: null };

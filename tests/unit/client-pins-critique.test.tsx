@@ -5,7 +5,7 @@ import { act, cleanup, fireEvent, render, screen, waitFor, within } from '@testi
 import { MemoryRouter } from 'react-router-dom';
 import type { AuditReportDto } from '../../shared/api/revisions.js';
 import cubePlates from '../fixtures/designs/o-cube-plates.json';
-import { type CritiqueViewer, RevisionCritique } from '../../src/features/pins/components/revision-critique.js';
+import { type CritiqueViewer, RevisionCritique } from '../../src/app/compositions/revision-critique.js';
 import { CRITIC, PARTICIPANT, json, pin, revisionPins } from './client-pins-fixtures.test.js';
 
 const fetchMock = vi.fn<typeof fetch>();

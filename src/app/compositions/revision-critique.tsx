@@ -1,22 +1,24 @@
 import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import type { CameraView, CreatePinBody, Pin } from '../../../../shared/api/critique.js';
-import type { StudioRole } from '../../../../shared/api/roles.js';
-import type { AuditReportDto, RevisionDetail } from '../../../../shared/api/revisions.js';
-import { Button } from '../../../components/ui/button.js';
-import { describeError, ErrorState } from '../../../components/ui/error-state.js';
-import { ListSkeleton } from '../../../components/ui/query-view.js';
-import { Spinner } from '../../../components/ui/spinner.js';
-import type { PlacedPin, ViewerFocus, ViewerPin, ViewerPins } from '../../viewer/components/model-viewer.js';
-import { useCreatePin } from '../api/create-pin.js';
-import { PIN_POLL_MS, useRevisionPins } from '../api/get-revision-pins.js';
-import { type NewPinValues, NewPinForm, type PinDraft } from './new-pin-form.js';
-import { PinList } from './pin-list.js';
-import { PinThread } from './pin-thread.js';
-import { ALL_PINS, type PinFilters, filterPins, newActivity, pinLabel, plural } from './pin-words.js';
+import type { CameraView, CreatePinBody, Pin } from '../../../shared/api/critique.js';
+import type { StudioRole } from '../../../shared/api/roles.js';
+import type { AuditReportDto, RevisionDetail } from '../../../shared/api/revisions.js';
+import { Button } from '../../components/ui/button.js';
+import { describeError, ErrorState } from '../../components/ui/error-state.js';
+import { ListSkeleton } from '../../components/ui/query-view.js';
+import { Spinner } from '../../components/ui/spinner.js';
+import type { PlacedPin, ViewerFocus, ViewerPin, ViewerPins } from '../../features/viewer/components/model-viewer.js';
+import { useCreatePin } from '../../features/pins/api/create-pin.js';
+import { PIN_POLL_MS, useRevisionPins } from '../../features/pins/api/get-revision-pins.js';
+import { type NewPinValues, NewPinForm, type PinDraft } from '../../features/pins/components/new-pin-form.js';
+import { PinList } from '../../features/pins/components/pin-list.js';
+import { PinThread } from '../../features/pins/components/pin-thread.js';
+import { ALL_PINS, type PinFilters, filterPins, newActivity, pinLabel, plural } from '../../features/pins/components/pin-words.js';
 
+// Composes two features (the viewer and the pins), so it lives with the app, not inside either;
+// the revision page and the pin-up presentation both show it.
 // three.js and the viewer load only when a model is shown.
-const ModelViewer = lazy(() => import('../../viewer/components/model-viewer.js'));
+const ModelViewer = lazy(() => import('../../features/viewer/components/model-viewer.js'));
 
 /** The signed-in person as the critique needs them: who they are and their role in the studio. */
 export interface CritiqueViewer {

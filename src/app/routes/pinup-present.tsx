@@ -1,4 +1,4 @@
-import { Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { Suspense, useCallback, useMemo, useState } from 'react';
 import { useQuery, type QueryClient } from '@tanstack/react-query';
 import { Link, useNavigate, useParams, useSearchParams, type LoaderFunctionArgs } from 'react-router-dom';
 import { PIN_CATEGORY_LABELS } from '../../../shared/api/critique.js';
@@ -7,7 +7,7 @@ import { ListSkeleton } from '../../components/ui/query-view.js';
 import { PageSkeleton } from '../../components/ui/spinner.js';
 import { meQueryOptions, useMe } from '../../features/auth/api/get-me.js';
 import { revisionPinsQueryOptions } from '../../features/pins/api/get-revision-pins.js';
-import { RevisionCritique } from '../../features/pins/components/revision-critique.js';
+import { RevisionCritique } from '../compositions/revision-critique.js';
 import { pinupQueryOptions, usePinup } from '../../features/pinups/api/get-pinup.js';
 import { entryIndexFrom, orderedEntries, PresentationStage, type StagePin } from '../../features/pinups/components/presentation-stage.js';
 import { revisionQueryOptions } from '../../features/revisions/api/get-revision.js';
@@ -77,7 +77,9 @@ function Presentation({ pinupId }: { pinupId: number }) {
 
   // The pin chosen in the stepper, remembered with its entry so another entry starts on the whole model.
   const [chosen, setChosen] = useState<{ index: number; pinId: number } | null>(null);
-  const pinIndex = chosen && chosen.index === index && stagePins ? stagePins.findIndex((p) => p.id === chosen.pinId) : -1;
+  const selectedPinId = chosen && chosen.index === index ? chosen.pinId : null;
+  // Where the selected pin is among the open ones the stepper walks (−1: a resolved pin chosen in the list).
+  const pinIndex = selectedPinId !== null && stagePins ? stagePins.findIndex((p) => p.id === selectedPinId) : -1;
 
   const goTo = useCallback(
     (next: number) => {
@@ -91,16 +93,12 @@ function Presentation({ pinupId }: { pinupId: number }) {
     [entries.length, setSearch],
   );
 
-  // Until the critique component takes a selected pin as a prop, the stepper selects a pin the way
-  // a person does: by pressing its button in the pin list (which also flies the model to the
-  // pin's view and opens its thread).
-  const critique = useRef<HTMLDivElement>(null);
-  const pinId = pinIndex >= 0 && stagePins ? stagePins[pinIndex].id : null;
-  useEffect(() => {
-    if (pinId === null) return;
-    const button = critique.current?.querySelector<HTMLButtonElement>(`button[data-pin-id="${pinId}"]`);
-    if (button && button.getAttribute('aria-pressed') !== 'true') button.click();
-  }, [pinId, revision.data]);
+  // The stepper's pin is handed to the critique, which flies the model to its view and opens its
+  // thread; a pin chosen in the list or on the model moves the stepper too.
+  const onSelectedPinChange = useCallback(
+    (id: number | null) => setChosen(id === null ? null : { index, pinId: id }),
+    [index],
+  );
 
   const viewer = me ? { id: me.id, name: me.name, role: studio.data?.myRole ?? null } : null;
 
@@ -123,7 +121,7 @@ function Presentation({ pinupId }: { pinupId: number }) {
       ) : revision.isError ? (
         <ErrorState title="The revision could not be loaded" error={revision.error} onRetry={() => void revision.refetch()} />
       ) : (
-        <div ref={critique} className="space-y-3">
+        <div className="space-y-3">
           <p className="text-sm text-ink-soft">
             <Link to={`/revisions/${revision.data.id}`}>Open revision {revision.data.number}</Link> to place pins and reply; here the pins are shown for the session.
           </p>
@@ -134,6 +132,8 @@ function Presentation({ pinupId }: { pinupId: number }) {
               report={revision.data.audit.state === 'done' ? revision.data.audit.report : null}
               readOnly
               viewer={viewer}
+              selectedPinId={selectedPinId}
+              onSelectedPinChange={onSelectedPinChange}
             />
           </Suspense>
         </div>

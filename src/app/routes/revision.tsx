@@ -8,7 +8,7 @@ import { QueryView } from '../../components/ui/query-view.js';
 import { useMe } from '../../features/auth/api/get-me.js';
 import { briefQueryOptions } from '../../features/briefs/api/get-brief.js';
 import { revisionPinsQueryOptions } from '../../features/pins/api/get-revision-pins.js';
-import { RevisionCritique } from '../../features/pins/components/revision-critique.js';
+import { RevisionCritique } from '../compositions/revision-critique.js';
 import { auditPollInterval } from '../../features/revisions/api/audit-polling.js';
 import { historyQueryOptions, useHistory } from '../../features/revisions/api/get-submission.js';
 import { revisionQueryOptions, useRevision } from '../../features/revisions/api/get-revision.js';
@@ -78,6 +78,7 @@ export function Component() {
             <span>{revision.source === 'file' ? 'From a design document' : 'Built from outlines'}</span>
             {revision.late ? <span className="rounded-sm border border-ink-soft px-1.5 font-mono text-xs">late</span> : null}
             <AuditStateBadge state={audit.state} />
+            <Link to={`/submissions/${revision.submissionId}/feedback`}>Rubric feedback</Link>
           </span>
         }
       />
