@@ -21,6 +21,7 @@ import { notificationsRouter } from './notifications/router.js';
 import { revisionsRouter } from './revisions/router.js';
 import { clientRouter } from './static.js';
 import { studiosRouter } from './studios/router.js';
+import { thumbnailsRouter } from './thumbnails/router.js';
 
 const SESSION_MAX_AGE_MS = 14 * 24 * 60 * 60 * 1000;
 const ROUTES = Symbol('planewright.routes');
@@ -92,6 +93,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/materials', materialsRouter(ctx, registry));
   app.use('/api', briefsRouter(ctx, registry));
   app.use('/api', revisionsRouter(ctx, registry));
+  app.use('/api', thumbnailsRouter(ctx, registry));
   app.use('/api', critiqueRouter(ctx, registry));
   app.use('/api/me', notificationsRouter(ctx, registry));
   app.use('/api', apiNotFound());

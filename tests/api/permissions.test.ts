@@ -276,6 +276,7 @@ const TABLE: Record<string, Entry> = {
     expect: instructors(200),
   },
   'GET /api/revisions/:revisionId': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}` }), expect: members(200) },
+  'GET /api/revisions/:revisionId/thumbnail': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}/thumbnail` }), expect: members(200) },
   'GET /api/revisions/:revisionId/audit': { call: () => ({ path: `/api/revisions/${uploaded.revisionId}/audit` }), expect: members(200) },
   'POST /api/revisions/:revisionId/retry': {
     call: (t) => ({ path: `/api/revisions/${failedRevision(t)}/retry` }),

@@ -3,28 +3,15 @@
  * drawn from the stored design, made once and kept in the blob store as a revision file of role
  * `thumbnail`; drawn again when the brief's material changes; 404 with a sentence when the
  * design cannot be read; the same callers as `GET /api/revisions/:revisionId` may see it.
- *
- * MOUNTING: until `server/app.ts` mounts `thumbnailsRouter` (one line, asked of the lead), this
- * file serves the route from a small app in front of the real one: the same context, the same
- * session store, passport and error middleware, so sessions and policy are the real ones. Once
- * the app mounts it, the real app is used as is (see `appUnderTest`).
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import express, { type Express } from 'express';
-import session from 'express-session';
+import type { Express } from 'express';
 import { Jimp } from 'jimp';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { listRoutes } from '../../server/app.js';
-import { createPassport } from '../../server/auth/passport.js';
-import { SESSION_COOKIE } from '../../server/auth/router.js';
-import { authService } from '../../server/auth/service.js';
-import { createSessionStore } from '../../server/auth/session-store.js';
 import { rawDb } from '../../server/db/raw.js';
-import { errorMiddleware } from '../../server/http/error-middleware.js';
-import { RouteRegistry } from '../../server/http/routes.js';
-import { thumbnailsRouter } from '../../server/thumbnails/router.js';
 import { PAPER, rgbOf } from '../../shared/engine/palette.js';
 import { isModelThumbnailFileName } from '../../shared/engine/thumbnail.js';
 import { DEMO_STUDIO_ID, startTestApp, type TestApp } from './helpers.js';
@@ -35,27 +22,10 @@ let t: TestApp;
 let app: Express;
 const cookies: Record<string, string> = {};
 
-/** The real app when it declares the route; else the route in front of the real app (see the header). */
+/** The real app, which declares the route under the revision's own policy action. */
 function appUnderTest(t: TestApp): Express {
-  if (listRoutes(t.app).some((r) => r.method === 'GET' && r.path === ROUTE)) {
-    expect(listRoutes(t.app).find((r) => r.path === ROUTE)?.action).toBe('submission.view');
-    return t.app;
-  }
-  const outer = express();
-  const passport = createPassport(authService(t.ctx));
-  const logError = (e: unknown) => console.error(e);
-  outer.use(
-    '/api',
-    session({ name: SESSION_COOKIE, secret: t.ctx.config.sessionSecret, store: createSessionStore(t.ds, logError), resave: false, saveUninitialized: false }),
-    passport.initialize(),
-    passport.session(),
-  );
-  const registry = new RouteRegistry();
-  outer.use('/api', thumbnailsRouter(t.ctx, registry));
-  expect(registry.entries).toEqual([{ method: 'GET', path: ROUTE, action: 'submission.view' }]);
-  outer.use(t.app);
-  outer.use(errorMiddleware(logError));
-  return outer;
+  expect(listRoutes(t.app).find((r) => r.method === 'GET' && r.path === ROUTE)?.action).toBe('submission.view');
+  return t.app;
 }
 
 const db = () => rawDb(t.ds);
