@@ -1,10 +1,11 @@
 // @vitest-environment jsdom
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { cleanup, fireEvent, render, screen, waitFor } from '@testing-library/react';
+import { fireEvent, render, screen, waitFor } from '@testing-library/react';
 import { InviteForm } from '../../src/features/studios/components/invite-form.js';
+import { stubFetch } from './client-support.js';
 
-const fetchMock = vi.fn<typeof fetch>();
+const fetchMock = stubFetch();
 const json = (status: number, body: unknown) =>
   new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
@@ -17,14 +18,6 @@ function renderForm() {
   );
 }
 
-beforeEach(() => {
-  fetchMock.mockReset();
-  vi.stubGlobal('fetch', fetchMock);
-});
-afterEach(() => {
-  cleanup();
-  vi.unstubAllGlobals();
-});
 
 describe('InviteForm', () => {
   it('when the address is not valid, says so at the field and sends nothing', async () => {

@@ -1,14 +1,15 @@
 // @vitest-environment jsdom
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { act, cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { act, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import { MemoryRouter } from 'react-router-dom';
 import type { AuditReportDto } from '../../shared/api/revisions.js';
 import cubePlates from '../fixtures/designs/o-cube-plates.json';
 import { type CritiqueViewer, RevisionCritique } from '../../src/app/compositions/revision-critique.js';
 import { CRITIC, PARTICIPANT, json, pin, revisionPins } from './client-pins-fixtures.test.js';
+import { stubFetch } from './client-support.js';
 
-const fetchMock = vi.fn<typeof fetch>();
+const fetchMock = stubFetch();
 const revision = { id: 12, number: 2, design: {}, participant: { id: PARTICIPANT.id, name: PARTICIPANT.name } };
 const critic: CritiqueViewer = { id: CRITIC.id, name: CRITIC.name, role: 'critic' };
 const owner: CritiqueViewer = { id: PARTICIPANT.id, name: PARTICIPANT.name, role: 'participant' };
@@ -24,14 +25,6 @@ function renderCritique(props: Partial<Parameters<typeof RevisionCritique>[0]> =
   );
 }
 
-beforeEach(() => {
-  fetchMock.mockReset();
-  vi.stubGlobal('fetch', fetchMock);
-});
-afterEach(() => {
-  cleanup();
-  vi.unstubAllGlobals();
-});
 
 describe('RevisionCritique states', () => {
   it('shows a loading placeholder, then the pins of the revision', async () => {

@@ -1,5 +1,5 @@
 // @vitest-environment jsdom
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { QueryClient, QueryClientProvider, useQuery } from '@tanstack/react-query';
 import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import type { Pin } from '../../shared/api/critique.js';
@@ -7,8 +7,9 @@ import { revisionPinsQueryOptions } from '../../src/features/pins/api/get-revisi
 import { pinKeys } from '../../src/features/pins/api/keys.js';
 import { PinThread } from '../../src/features/pins/components/pin-thread.js';
 import { PARTICIPANT, comment, json, pin, revisionPins } from './client-pins-fixtures.test.js';
+import { stubFetch } from './client-support.js';
 
-const fetchMock = vi.fn<typeof fetch>();
+const fetchMock = stubFetch();
 
 /** Watches the list as the page does (its structural sharing then applies to every cache edit), without fetching. */
 function WatchList() {
@@ -29,14 +30,6 @@ function renderThread(p: Pin, rights = { canReply: true, canResolve: true, canCh
   return { client, onClose, ...utils };
 }
 
-beforeEach(() => {
-  fetchMock.mockReset();
-  vi.stubGlobal('fetch', fetchMock);
-});
-afterEach(() => {
-  cleanup();
-  vi.unstubAllGlobals();
-});
 
 describe('PinThread markdown', () => {
   it('drops a <script> in a comment and shows the words around it as text', () => {

@@ -1,13 +1,14 @@
 // @vitest-environment jsdom
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
 import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { cleanup, fireEvent, render, screen, waitFor, within } from '@testing-library/react';
+import { fireEvent, render, screen, waitFor, within } from '@testing-library/react';
 import type { Pinup } from '../../shared/api/critique.js';
 import { Component, makeLoader } from '../../src/app/routes/pinup.js';
+import { stubFetch } from './client-support.js';
 
 // The session page against a fake server answering by address (the real routes' shapes).
-const fetchMock = vi.fn<typeof fetch>();
+const fetchMock = stubFetch();
 const json = (status: number, body: unknown) => new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
 const people = {
@@ -87,14 +88,6 @@ function open(server: Server) {
   return router;
 }
 
-beforeEach(() => {
-  fetchMock.mockReset();
-  vi.stubGlobal('fetch', fetchMock);
-});
-afterEach(() => {
-  cleanup();
-  vi.unstubAllGlobals();
-});
 
 describe('pin-up page', () => {
   it('lets the instructor start the session and then finish it', async () => {
