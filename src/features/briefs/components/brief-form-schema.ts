@@ -7,24 +7,8 @@ import {
   type Brief,
   type CreateBriefBody,
 } from '../../../../shared/api/briefs.js';
+import { localDateTimeSchema } from '../../../lib/form-dates.js';
 import { fromLocalInput, toLocalInput } from '../../../lib/format.js';
-
-/**
- * The brief editor's form: the shared create schema, with the few fields a form holds
- * differently — local date-times instead of ISO instants, a family rule's axis-or-normal choice,
- * and empty boxes for optional values. The output is a {@link CreateBriefBody}.
- */
-const localDateTime = z
-  .string()
-  .min(1, 'Choose a date and time')
-  .transform((value, ctx) => {
-    const iso = fromLocalInput(value);
-    if (!iso) {
-      ctx.addIssue({ code: 'custom', message: 'must be a date and time' });
-      return z.NEVER;
-    }
-    return iso;
-  });
 
 export interface FamilyRuleForm {
   group: string;
@@ -45,8 +29,13 @@ const familyRuleForm = z.preprocess((raw) => {
   };
 }, familyRuleSchema);
 
+/**
+ * The brief editor's form: the shared create schema, with the few fields a form holds
+ * differently — local date-times instead of ISO instants, a family rule's axis-or-normal choice,
+ * and empty boxes for optional values. The output is a {@link CreateBriefBody}.
+ */
 export const briefFormSchema = createBriefBodySchema.extend({
-  deadline: localDateTime,
+  deadline: localDateTimeSchema,
   critiqueWindow: z
     .object({ opensAt: z.string(), closesAt: z.string() })
     .transform((w, ctx) => {

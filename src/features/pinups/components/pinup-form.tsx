@@ -6,7 +6,8 @@ import { createPinupBodySchema, type Pinup } from '../../../../shared/api/critiq
 import { Button } from '../../../components/ui/button.js';
 import { TextField } from '../../../components/ui/field.js';
 import { FormStatus } from '../../../components/ui/form-status.js';
-import { fromLocalInput, toLocalInput } from '../../../lib/format.js';
+import { localDateTimeSchema } from '../../../lib/form-dates.js';
+import { toLocalInput } from '../../../lib/format.js';
 import { formErrorMap, numberField } from '../../../lib/form-numbers.js';
 import { useSubmitStatus } from '../../../lib/use-submit-status.js';
 import { RunningOrderEditor, type RunningOrderOption } from './running-order-editor.js';
@@ -18,17 +19,7 @@ import { RunningOrderEditor, type RunningOrderOption } from './running-order-edi
  */
 export const pinupFormSchema = z.object({
   title: createPinupBodySchema.shape.title,
-  startsAt: z
-    .string()
-    .min(1, 'Choose a date and time')
-    .transform((value, ctx) => {
-      const iso = fromLocalInput(value);
-      if (!iso) {
-        ctx.addIssue({ code: 'custom', message: 'must be a date and time' });
-        return z.NEVER;
-      }
-      return iso;
-    }),
+  startsAt: localDateTimeSchema,
   durationMinutes: z.number().int('Use whole minutes').min(10, 'At least 10 minutes').max(600, 'At most 600 minutes'),
   room: z.string().trim().max(200, 'Use at most 200 characters'),
   submissionIds: z
