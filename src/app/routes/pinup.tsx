@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { useQuery, useQueryClient, useSuspenseQuery, type QueryClient } from '@tanstack/react-query';
-import { Link, useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useNavigate, useParams, type LoaderFunctionArgs } from 'react-router-dom';
 import type { PinupState } from '../../../shared/api/critique.js';
 import { Button, ButtonLink } from '../../components/ui/button.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
@@ -9,6 +9,7 @@ import { describeError } from '../../components/ui/error-state.js';
 import { FormStatus, type FormStatusValue } from '../../components/ui/form-status.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { QueryView } from '../../components/ui/query-view.js';
+import { BriefCrumbs } from '../../components/ui/brief-crumbs.js';
 import { meQueryOptions, useMe } from '../../features/auth/api/get-me.js';
 import { briefQueryOptions } from '../../features/briefs/api/get-brief.js';
 import { forgetPinup, useDeletePinup } from '../../features/pinups/api/delete-pinup.js';
@@ -97,13 +98,7 @@ function PinupPage({ pinupId, studioId, briefId }: { pinupId: number; studioId: 
   return (
     <div className="space-y-8">
       <PageHeader
-        eyebrow={
-          <span className="flex flex-wrap gap-2">
-            <Link to={`/studios/${studio.id}`}>{studio.name}</Link>
-            <span aria-hidden="true">/</span>
-            <Link to={`/briefs/${pinup.briefId}`}>{brief.data?.title ?? pinup.briefTitle}</Link>
-          </span>
-        }
+        eyebrow={<BriefCrumbs studio={studio} briefId={pinup.briefId} briefTitle={brief.data?.title ?? pinup.briefTitle} />}
         title={pinup.title}
         description={
           <span className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">

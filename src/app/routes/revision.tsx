@@ -5,6 +5,7 @@ import { AuditStateBadge } from '../../components/ui/audit-state-badge.js';
 import { Card, CardHeader } from '../../components/ui/card.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { QueryView } from '../../components/ui/query-view.js';
+import { BriefCrumbs } from '../../components/ui/brief-crumbs.js';
 import { useMe } from '../../features/auth/api/get-me.js';
 import { briefQueryOptions } from '../../features/briefs/api/get-brief.js';
 import { revisionPinsQueryOptions } from '../../features/pins/api/get-revision-pins.js';
@@ -63,13 +64,7 @@ export function Component() {
   return (
     <div className="space-y-8">
       <PageHeader
-        eyebrow={
-          <span className="flex flex-wrap gap-2">
-            <Link to={`/studios/${studio.id}`}>{studio.name}</Link>
-            <span aria-hidden="true">/</span>
-            <Link to={`/briefs/${revision.briefId}`}>{brief.data?.title ?? 'Brief'}</Link>
-          </span>
-        }
+        eyebrow={<BriefCrumbs studio={studio} briefId={revision.briefId} briefTitle={brief.data?.title ?? 'Brief'} />}
         title={`Revision ${revision.number}${revision.title ? `: ${revision.title}` : ''}`}
         description={
           <span className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">

@@ -6,6 +6,7 @@ import { Card, CardHeader } from '../../components/ui/card.js';
 import { EmptyState } from '../../components/ui/empty-state.js';
 import { PageHeader } from '../../components/ui/page-header.js';
 import { QueryView } from '../../components/ui/query-view.js';
+import { BriefCrumbs } from '../../components/ui/brief-crumbs.js';
 import { useMe } from '../../features/auth/api/get-me.js';
 import { briefQueryOptions } from '../../features/briefs/api/get-brief.js';
 import { feedbackQueryOptions, useFeedback } from '../../features/feedback/api/get-feedback.js';
@@ -46,13 +47,7 @@ export function Component() {
   return (
     <div className="space-y-8">
       <PageHeader
-        eyebrow={
-          <span className="flex flex-wrap gap-2">
-            <Link to={`/studios/${studio.id}`}>{studio.name}</Link>
-            <span aria-hidden="true">/</span>
-            <Link to={`/briefs/${submission.briefId}`}>{brief.data?.title ?? 'Brief'}</Link>
-          </span>
-        }
+        eyebrow={<BriefCrumbs studio={studio} briefId={submission.briefId} briefTitle={brief.data?.title ?? 'Brief'} />}
         title={`Feedback: ${submission.participant.name}`}
         description={
           <span className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
