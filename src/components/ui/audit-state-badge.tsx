@@ -1,4 +1,5 @@
 import { cn } from './cn.js';
+import { MarkedBadge } from './marked-badge.js';
 
 export type AuditStateName = 'queued' | 'running' | 'done' | 'failed';
 
@@ -42,19 +43,13 @@ const FRAMES: Record<AuditStateName, string> = {
  */
 export function AuditStateBadge({ state, detail, className }: { state: AuditStateName; detail?: string; className?: string }) {
   return (
-    <span
-      data-audit-state={state}
-      className={cn('inline-flex items-center gap-1.5 rounded-sm border px-2 py-0.5 text-xs font-medium leading-5 whitespace-nowrap', FRAMES[state], className)}
-    >
-      <svg aria-hidden="true" viewBox="0 0 12 12" className="size-3 shrink-0">
-        <Mark state={state} />
-      </svg>
+    <MarkedBadge data-audit-state={state} frame={FRAMES[state]} mark={<Mark state={state} />} className={className}>
       <span>
         <span className="sr-only">Audit </span>
         {LABELS[state]}
         {detail ? <span className="font-normal"> · {detail}</span> : null}
       </span>
-    </span>
+    </MarkedBadge>
   );
 }
 

@@ -1,5 +1,5 @@
 import type { PinupState } from '../../../../shared/api/critique.js';
-import { cn } from '../../../components/ui/cn.js';
+import { MarkedBadge } from '../../../components/ui/marked-badge.js';
 
 export const PINUP_STATE_LABELS: Readonly<Record<PinupState, string>> = {
   scheduled: 'Scheduled',
@@ -33,14 +33,8 @@ const FRAMES: Record<PinupState, string> = {
 /** A pin-up's state as text with a mark of its own. */
 export function PinupStateBadge({ state, className }: { state: PinupState; className?: string }) {
   return (
-    <span
-      data-pinup-state={state}
-      className={cn('inline-flex items-center gap-1.5 rounded-sm border px-2 py-0.5 text-xs font-medium leading-5 whitespace-nowrap', FRAMES[state], className)}
-    >
-      <svg aria-hidden="true" viewBox="0 0 12 12" className="size-3 shrink-0">
-        <Mark state={state} />
-      </svg>
+    <MarkedBadge data-pinup-state={state} frame={FRAMES[state]} mark={<Mark state={state} />} className={className}>
       {PINUP_STATE_LABELS[state]}
-    </span>
+    </MarkedBadge>
   );
 }

@@ -2,9 +2,9 @@ import type { ColumnDef } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
 import type { SubmissionRow, SubmissionsQuery } from '../../../../shared/api/briefs.js';
 import { AuditStateBadge } from '../../../components/ui/audit-state-badge.js';
-import { cn } from '../../../components/ui/cn.js';
 import { DataTable } from '../../../components/ui/data-table.js';
 import { RevisionThumbnail } from '../../../components/ui/revision-thumbnail.js';
+import { MarkedBadge } from '../../../components/ui/marked-badge.js';
 import { formatDateTime } from '../../../lib/format.js';
 
 const CRITIQUE_WORDS: Record<SubmissionRow['critiqueState'], string> = {
@@ -36,15 +36,12 @@ const CRITIQUE_FRAMES: Record<SubmissionRow['critiqueState'], string> = {
 /** The critique state of a submission as text with a mark. */
 export function CritiqueStateBadge({ state }: { state: SubmissionRow['critiqueState'] }) {
   return (
-    <span data-critique-state={state} className={cn('inline-flex items-center gap-1.5 rounded-sm border px-2 py-0.5 text-xs font-medium leading-5 whitespace-nowrap', CRITIQUE_FRAMES[state])}>
-      <svg aria-hidden="true" viewBox="0 0 12 12" className="size-3 shrink-0">
-        {CRITIQUE_MARKS[state]}
-      </svg>
+    <MarkedBadge data-critique-state={state} frame={CRITIQUE_FRAMES[state]} mark={CRITIQUE_MARKS[state]}>
       <span>
         <span className="sr-only">Critique </span>
         {CRITIQUE_WORDS[state]}
       </span>
-    </span>
+    </MarkedBadge>
   );
 }
 
